@@ -1,0 +1,45 @@
+import { readFileSync } from 'node:fs';
+import { MASS_FUNCTION_NAMES } from '../core/halos/index.js';
+import type { DeltaCSpec } from '../core/halos/index.js';
+import { parsePowerTable, TRANSFER_NAMES, type TransferSpec } from '../core/power/index.js';
+import { choice, num, type OptionSpec, type Parsed } from './args.js';
+import { CliError } from './cli-error.js';
+
+export const HALO_OPTIONS: OptionSpec = {
+  model: { type: 'string' },
+  transfer: { type: 'string' },
+  'pk-file': { type: 'string' },
+  'delta-c': { type: 'string' },
+};
+
+export const HALO_HELP = `Halo abundance:
+  --model NAME        mass function: ${MASS_FUNCTION_NAMES.join(', ')} (default sheth-tormen)
+  --transfer NAME     ${TRANSFER_NAMES.join(', ')}, or table (needs --pk-file) (default eh98)
+  --pk-file FILE      tabulated P(k) at z = 0: two columns, k [1/Mpc] and P [Mpc^3]
+  --delta-c X|omega-m collapse threshold (default 1.686; omega-m = 1.686[1+0.0123 log10 Ωm(z)])`;
+
+export function haloChoices(values: Parsed['values']): { massFunction: string; transfer: TransferSpec; deltaC: DeltaCSpec } {
+  const massFunction = choice('model', values.model, MASS_FUNCTION_NAMES, 'sheth-tormen');
+  const tName = choice('transfer', values.transfer, [...TRANSFER_NAMES, 'table'] as const, values['pk-file'] ? 'table' : 'eh98');
+  let transfer: TransferSpec;
+  if (tName === 'table') {
+    const file = values['pk-file'];
+    if (typeof file !== 'string') throw new CliError('--transfer table needs --pk-file FILE');
+    let text: string;
+    try {
+      text = readFileSync(file, 'utf8');
+    } catch (e) {
+      throw new CliError(`--pk-file: cannot read ${file} (${(e as NodeJS.ErrnoException).code ?? 'error'})`);
+    }
+    try {
+      transfer = { kind: 'table', ...parsePowerTable(text, `--pk-file ${file}`) };
+    } catch (e) {
+      throw new CliError((e as Error).message);
+    }
+  } else {
+    transfer = { kind: tName };
+  }
+  const dcRaw = values['delta-c'];
+  const deltaC: DeltaCSpec = dcRaw === 'omega-m' ? { kind: 'omega-m' } : { kind: 'constant', value: dcRaw === undefined ? 1.686 : num('delta-c', dcRaw, { gt: 0, max: 10 }) };
+  return { massFunction, transfer, deltaC };
+}

@@ -1,0 +1,55 @@
+import { CosmologyError } from '../core/cosmology/index.js';
+import { CliError } from './cli-error.js';
+import { runCosmo } from './commands/cosmo.js';
+import { runHalos } from './commands/halos.js';
+import { runRarest } from './commands/rarest.js';
+
+const COMMANDS: Record<string, (argv: string[]) => string | Promise<string>> = {
+  cosmo: runCosmo,
+  halos: runHalos,
+  rarest: runRarest,
+};
+
+export const MAIN_HELP = `Baryon Audit — can ΛCDM's haloes hold the stars reported in early galaxies?
+
+Usage: npm run -s cli -- <subcommand> [flags]     (--help on any subcommand)
+  cosmo    background cosmology: ages, distances, volume element
+  halos    halo mass function, n(>M) and ρ(>M)
+  rarest   mass distribution of the most massive halo in a survey volume`;
+
+export function registerCommand(name: string, run: (argv: string[]) => string | Promise<string>): void {
+  COMMANDS[name] = run;
+}
+
+/** Runs one command line; returns the exit code (0 ok, 2 unusable input, 1 internal error). */
+export async function main(argv: string[], out: (s: string) => void = (s) => process.stdout.write(s + '\n'), err: (s: string) => void = (s) => process.stderr.write(s + '\n')): Promise<number> {
+  const [cmd, ...rest] = argv;
+  if (!cmd || cmd === '--help' || cmd === '-h' || cmd === 'help') {
+    out(MAIN_HELP.replace(/\n  rarest.*$/m, (l) => l + extraHelp()));
+    return cmd ? 0 : 2;
+  }
+  const run = COMMANDS[cmd];
+  if (!run) {
+    err(`error: unknown subcommand "${cmd}" (allowed: ${Object.keys(COMMANDS).join(', ')})`);
+    return 2;
+  }
+  try {
+    out(await run(rest));
+    return 0;
+  } catch (e) {
+    if (e instanceof CliError || e instanceof CosmologyError || e instanceof RangeError) {
+      err(`error: ${(e as Error).message}`);
+      return 2;
+    }
+    err(`internal error: ${(e as Error).message}`);
+    return 1;
+  }
+}
+
+let extra = '';
+export function addHelpLine(line: string): void {
+  extra += '\n' + line;
+}
+function extraHelp(): string {
+  return extra;
+}

@@ -1,0 +1,10 @@
+export type { CosmologyParams, ParamSpec } from './params.js';
+export { PARAM_SPECS } from './params.js';
+export { PLANCK18, WMAP9, PRESETS } from './presets.js';
+export { validateCosmology, assertCosmology, CosmologyError, darkEnergyDensity } from './validate.js';
+export type { ParamProblem } from './validate.js';
+export { photonDensity, radiationDensity } from './radiation.js';
+export { makeBackground } from './background.js';
+export type { Background } from './background.js';
+export { makeGrowth } from './growth.js';
+export type { Growth } from './growth.js';

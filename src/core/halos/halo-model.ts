@@ -1,0 +1,133 @@
+import { makeBackground, type Background } from '../cosmology/background.js';
+import { makeGrowth, type Growth } from '../cosmology/growth.js';
+import type { CosmologyParams } from '../cosmology/params.js';
+import { gaussLegendre } from '../numeric/gauss-legendre.js';
+import { makeLinearPower, type LinearPower } from '../power/linear-power.js';
+import { makeSigmaTable, type SigmaTable } from '../power/sigma-table.js';
+import type { TransferSpec } from '../power/transfer.js';
+import { biasByName, type BiasName } from './bias.js';
+import { DEFAULT_DELTA_C, deltaCOmegaM, type DeltaCSpec } from './collapse-threshold.js';
+import { massFunctionByName } from './models.js';
+import type { MultiplicityModel } from './multiplicity.js';
+
+export interface HaloModelOptions {
+  readonly cosmology: CosmologyParams;
+  readonly transfer: TransferSpec;
+  readonly massFunction: string;
+  readonly deltaC?: DeltaCSpec;
+}
+
+/** Halo abundances at one redshift, with cumulative integrals tabulated on the σ-table nodes. */
+export interface HaloSlice {
+  readonly z: number;
+  /** dn/dlnM, comoving Mpc⁻³. */
+  dndlnM(massMsun: number): number;
+  /** n(>M) = ∫_M^{1e19 Msun} dn/dlnM' dlnM', comoving Mpc⁻³. */
+  nAbove(massMsun: number): number;
+  /** ρ(>M) = ∫_M^{1e19 Msun} M' dn/dlnM' dlnM', Msun per comoving Mpc³. */
+  rhoAbove(massMsun: number): number;
+}
+
+export interface HaloModel {
+  readonly options: HaloModelOptions;
+  readonly background: Background;
+  readonly growth: Growth;
+  readonly power: LinearPower;
+  readonly table: SigmaTable;
+  readonly model: MultiplicityModel;
+  /** Cosmic baryon fraction f_b = Ω_b/Ω_m. */
+  readonly baryonFraction: number;
+  deltaC(z: number): number;
+  sigma(massMsun: number, z: number): number;
+  nu(massMsun: number, z: number): number;
+  dndlnM(massMsun: number, z: number): number;
+  nAbove(massMsun: number, z: number): number;
+  rhoAbove(massMsun: number, z: number): number;
+  bias(massMsun: number, z: number, name?: BiasName): number;
+  slice(z: number): HaloSlice;
+}
+
+const GL_N = 4;
+
+export function makeHaloModel(options: HaloModelOptions): HaloModel {
+  const p = options.cosmology;
+  const background = makeBackground(p);
+  const growth = makeGrowth(p);
+  const power = makeLinearPower(p, options.transfer);
+  const table = makeSigmaTable(power);
+  const model = massFunctionByName(options.massFunction);
+  const dcSpec = options.deltaC ?? DEFAULT_DELTA_C;
+  const rho = table.rhoMMsunMpc3;
+  const deltaC = (z: number): number => (dcSpec.kind === 'constant' ? dcSpec.value : deltaCOmegaM(background.omegaMz(z)));
+
+  /** dn/dlnM at one mass and growth factor (Jenkins et al. 2001 convention). */
+  const dnAt = (m: number, d: number, dc: number, z: number): number => {
+    const s = table.sigma0(m) * d;
+    const slope = table.dlnSigmaDlnM(m);
+    return model.f({ sigma: s, deltaC: dc, z, nEff: -6 * slope - 3 }) * (rho / m) * Math.abs(slope);
+  };
+  const g = gaussLegendre(GL_N);
+  const lnMax = table.log10MMax * Math.LN10;
+
+  const slice = (z: number): HaloSlice => {
+    const d = growth.d(z);
+    const dc = deltaC(z);
+    const nodes = table.log10M.length;
+    // cumN[i] = ∫ from node i to the top of the table.
+    const cumN = new Float64Array(nodes);
+    const cumR = new Float64Array(nodes);
+    const seg = (la: number, lb: number): [number, number] => {
+      const mid = 0.5 * (la + lb);
+      const half = 0.5 * (lb - la);
+      let sn = 0;
+      let sr = 0;
+      for (let i = 0; i < GL_N; i++) {
+        const lm = mid + half * g.x[i];
+        const m = Math.exp(lm);
+        const v = dnAt(m, d, dc, z);
+        sn += g.w[i] * v;
+        sr += g.w[i] * v * m;
+      }
+      return [sn * half, sr * half];
+    };
+    for (let i = nodes - 2; i >= 0; i--) {
+      const [sn, sr] = seg(table.log10M[i] * Math.LN10, table.log10M[i + 1] * Math.LN10);
+      cumN[i] = cumN[i + 1] + sn;
+      cumR[i] = cumR[i + 1] + sr;
+    }
+    const step = table.log10M[1] - table.log10M[0];
+    const above = (m: number): [number, number] => {
+      const lm = Math.log(m);
+      if (lm >= lnMax) return [0, 0];
+      table.sigma0(m); // range check with a clear message
+      let i = Math.floor((Math.log10(m) - table.log10MMin) / step);
+      i = Math.min(Math.max(i, 0), nodes - 2);
+      const [sn, sr] = seg(lm, table.log10M[i + 1] * Math.LN10);
+      return [cumN[i + 1] + sn, cumR[i + 1] + sr];
+    };
+    return {
+      z,
+      dndlnM: (m) => dnAt(m, d, dc, z),
+      nAbove: (m) => above(m)[0],
+      rhoAbove: (m) => above(m)[1],
+    };
+  };
+
+  return {
+    options,
+    background,
+    growth,
+    power,
+    table,
+    model,
+    baryonFraction: p.omegaB / p.omegaM,
+    deltaC,
+    sigma: (m, z) => table.sigma0(m) * growth.d(z),
+    nu: (m, z) => deltaC(z) / (table.sigma0(m) * growth.d(z)),
+    dndlnM: (m, z) => dnAt(m, growth.d(z), deltaC(z), z),
+    nAbove: (m, z) => slice(z).nAbove(m),
+    rhoAbove: (m, z) => slice(z).rhoAbove(m),
+    bias: (m, z, name = 'smt01') => biasByName(name, deltaC(z) / (table.sigma0(m) * growth.d(z)), deltaC(z)),
+    slice,
+  };
+}

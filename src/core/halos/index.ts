@@ -1,0 +1,15 @@
+export type { MultiplicityModel, MultiplicityContext } from './multiplicity.js';
+export { pressSchechter } from './press-schechter.js';
+export { shethTormen, ST_A, ST_SMALL_A, ST_P } from './sheth-tormen.js';
+export { tinker08 } from './tinker08.js';
+export { reed07 } from './reed07.js';
+export { jenkins01 } from './jenkins01.js';
+export { MASS_FUNCTIONS, MASS_FUNCTION_NAMES, massFunctionByName } from './models.js';
+export { biasMoWhite, biasShethTormen, biasSmt01, biasTinker10, biasByName, BIAS_NAMES } from './bias.js';
+export type { BiasName } from './bias.js';
+export { DELTA_C_EDS, DEFAULT_DELTA_C, deltaCOmegaM } from './collapse-threshold.js';
+export type { DeltaCSpec } from './collapse-threshold.js';
+export { makeHaloModel } from './halo-model.js';
+export type { HaloModel, HaloModelOptions, HaloSlice } from './halo-model.js';
+export { makeSurveyHalos } from './survey-halos.js';
+export type { SurveyHalos } from './survey-halos.js';

@@ -1,0 +1,5 @@
+export * from './constants.js';
+export * from './cosmology/index.js';
+export * from './numeric/index.js';
+export * from './power/index.js';
+export * from './halos/index.js';

@@ -1,0 +1,6 @@
+export { gaussLegendre, integrate } from './gauss-legendre.js';
+export type { GaussRule } from './gauss-legendre.js';
+export { cubicSpline, splineEval, splineDeriv } from './cubic-spline.js';
+export type { CubicSpline } from './cubic-spline.js';
+export { findRoot } from './root-find.js';
+export { quantileSorted, sortedCopy, fractionAbove } from './quantile.js';

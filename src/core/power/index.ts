@@ -1,0 +1,12 @@
+export { eisensteinHuScales, makeEisensteinHu, makeEisensteinHuNoWiggle } from './eisenstein-hu.js';
+export type { EisensteinHuScales } from './eisenstein-hu.js';
+export { makeBbks } from './bbks.js';
+export { topHat, topHatDeriv } from './top-hat.js';
+export { makeTransfer, TRANSFER_NAMES } from './transfer.js';
+export type { TransferSpec, TransferName } from './transfer.js';
+export { makeLinearPower } from './linear-power.js';
+export type { LinearPower } from './linear-power.js';
+export { makeSigmaTable, LOG10M_MIN, LOG10M_MAX, LOG10M_STEP } from './sigma-table.js';
+export type { SigmaTable } from './sigma-table.js';
+export { parsePowerTable } from './power-table.js';
+export type { PowerTable } from './power-table.js';

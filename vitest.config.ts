@@ -1,0 +1,9 @@
+import { defineConfig } from 'vitest/config';
+
+export default defineConfig({
+  test: {
+    environment: 'node',
+    include: ['test/core/**/*.test.ts', 'test/cli/**/*.test.ts', 'test/props/**/*.test.ts'],
+    testTimeout: 60000,
+  },
+});
