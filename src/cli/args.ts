@@ -16,9 +16,25 @@ export interface Parsed {
   positionals: string[];
 }
 
+/** Joins `--flag -2.5` into `--flag=-2.5` for string options, so negative numbers need no `=`. */
+function joinNegatives(argv: string[], options: OptionSpec): string[] {
+  const out: string[] = [];
+  for (let i = 0; i < argv.length; i++) {
+    const a = argv[i];
+    const name = a.startsWith('--') && !a.includes('=') ? a.slice(2) : undefined;
+    const next = argv[i + 1];
+    if (name && options[name]?.type === 'string' && next !== undefined && /^-(\d|\.\d)/.test(next)) {
+      out.push(`${a}=${next}`);
+      i++;
+    } else out.push(a);
+  }
+  return out;
+}
+
 export function parse(argv: string[], options: OptionSpec, allowPositionals = false): Parsed {
   try {
-    const r = parseArgs({ args: argv, options: { ...COMMON_OPTIONS, ...options }, strict: true, allowPositionals });
+    const all = { ...COMMON_OPTIONS, ...options };
+    const r = parseArgs({ args: joinNegatives(argv, all), options: all, strict: true, allowPositionals });
     return { values: r.values as Parsed['values'], positionals: r.positionals };
   } catch (e) {
     const msg = (e as Error).message.replace(/\. To specify a positional argument.*$/s, '');

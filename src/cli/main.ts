@@ -3,11 +3,15 @@ import { CliError } from './cli-error.js';
 import { runCosmo } from './commands/cosmo.js';
 import { runHalos } from './commands/halos.js';
 import { runRarest } from './commands/rarest.js';
+import { runStars } from './commands/stars.js';
+import { runMass } from './commands/mass.js';
 
 const COMMANDS: Record<string, (argv: string[]) => string | Promise<string>> = {
   cosmo: runCosmo,
   halos: runHalos,
   rarest: runRarest,
+  stars: runStars,
+  mass: runMass,
 };
 
 export const MAIN_HELP = `Baryon Audit — can ΛCDM's haloes hold the stars reported in early galaxies?
@@ -15,7 +19,9 @@ export const MAIN_HELP = `Baryon Audit — can ΛCDM's haloes hold the stars rep
 Usage: npm run -s cli -- <subcommand> [flags]     (--help on any subcommand)
   cosmo    background cosmology: ages, distances, volume element
   halos    halo mass function, n(>M) and ρ(>M)
-  rarest   mass distribution of the most massive halo in a survey volume`;
+  rarest   mass distribution of the most massive halo in a survey volume
+  stars    population synthesis per IMF: L_ν, surviving mass, mass-to-light
+  mass     stellar mass per IMF from a magnitude or luminosity`;
 
 export function registerCommand(name: string, run: (argv: string[]) => string | Promise<string>): void {
   COMMANDS[name] = run;

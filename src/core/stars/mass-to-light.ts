@@ -1,0 +1,88 @@
+import { MODEL_LAMBDA_MAX_UM, MODEL_LAMBDA_MIN_UM } from './photometry.js';
+import { cumulativeYoungerThan, type Sfh } from './sfh.js';
+import { POST_MS_DURATION, type Population } from './population.js';
+
+/**
+ * Tables of log10 L_ν (erg s⁻¹ Hz⁻¹ per Msun formed) and log10 of the surviving fraction over
+ * log-spaced population ages (1 Myr–14 Gyr, 100 points) and rest wavelengths (Lyman-α–1 μm,
+ * 24 points), bilinear in (log age, log λ). Built once per (IMF, SFH); used by the Monte Carlo
+ * so that one mass estimate costs a table lookup instead of a synthesis.
+ */
+export interface MassToLightTable {
+  readonly nAge: number;
+  readonly nLam: number;
+  readonly log10AgeMin: number;
+  readonly log10AgeMax: number;
+  readonly log10LamMin: number;
+  readonly log10LamMax: number;
+  readonly logLnu: Float64Array;
+  readonly logSurv: Float64Array;
+  /** log10(surviving Msun per erg s⁻¹ Hz⁻¹) at (age Myr, λ μm). */
+  logMassToLight(ageMyr: number, lambdaUm: number): number;
+}
+
+export const ML_AGE_MIN_MYR = 1;
+export const ML_AGE_MAX_MYR = 14000;
+
+export function makeMassToLightTable(pop: Population, sfh: Sfh, nAge = 100, nLam = 24): MassToLightTable {
+  const la0 = Math.log10(ML_AGE_MIN_MYR);
+  const la1 = Math.log10(ML_AGE_MAX_MYR);
+  const ll0 = Math.log10(MODEL_LAMBDA_MIN_UM);
+  const ll1 = Math.log10(MODEL_LAMBDA_MAX_UM);
+  const lams = Array.from({ length: nLam }, (_, j) => 10 ** (ll0 + ((ll1 - ll0) * j) / (nLam - 1)));
+  const nb = pop.number.length;
+  const perStar = lams.map((l) => {
+    // one synthesis at a fixed age per λ primes the population's per-star cache
+    pop.lnu(sfh, 1, l);
+    return l;
+  });
+  const logLnu = new Float64Array(nAge * nLam);
+  const logSurv = new Float64Array(nAge);
+  const cMs = new Float64Array(nb);
+  const cEnd = new Float64Array(nb);
+  for (let i = 0; i < nAge; i++) {
+    const age = 10 ** (la0 + ((la1 - la0) * i) / (nAge - 1));
+    for (let b = 0; b < nb; b++) {
+      cMs[b] = cumulativeYoungerThan(sfh, pop.tMsMyr[b], age);
+      cEnd[b] = cumulativeYoungerThan(sfh, pop.tMsMyr[b] * (1 + POST_MS_DURATION), age);
+    }
+    let surv = 0;
+    for (let b = 0; b < nb; b++) surv += pop.mass[b] * cEnd[b] + pop.remnant[b] * pop.number[b] * (1 - cEnd[b]);
+    logSurv[i] = Math.log10(surv);
+    for (let j = 0; j < nLam; j++) {
+      const { ms, post } = pop.perStarLnu(perStar[j]);
+      let s = 0;
+      for (let b = 0; b < nb; b++) s += pop.number[b] * (ms[b] * cMs[b] + post[b] * (cEnd[b] - cMs[b]));
+      logLnu[i * nLam + j] = Math.log10(Math.max(s, 1e-300));
+    }
+  }
+  const fa = (nAge - 1) / (la1 - la0);
+  const fl = (nLam - 1) / (ll1 - ll0);
+  return {
+    nAge,
+    nLam,
+    log10AgeMin: la0,
+    log10AgeMax: la1,
+    log10LamMin: ll0,
+    log10LamMax: ll1,
+    logLnu,
+    logSurv,
+    logMassToLight: (ageMyr, lambdaUm) => {
+      let x = (Math.log10(ageMyr) - la0) * fa;
+      let y = (Math.log10(lambdaUm) - ll0) * fl;
+      x = Math.min(Math.max(x, 0), nAge - 1);
+      y = Math.min(Math.max(y, 0), nLam - 1);
+      const i = Math.min(Math.floor(x), nAge - 2);
+      const j = Math.min(Math.floor(y), nLam - 2);
+      const tx = x - i;
+      const ty = y - j;
+      const l00 = logLnu[i * nLam + j];
+      const l01 = logLnu[i * nLam + j + 1];
+      const l10 = logLnu[(i + 1) * nLam + j];
+      const l11 = logLnu[(i + 1) * nLam + j + 1];
+      const lnu = (1 - tx) * ((1 - ty) * l00 + ty * l01) + tx * ((1 - ty) * l10 + ty * l11);
+      const surv = (1 - tx) * logSurv[i] + tx * logSurv[i + 1];
+      return surv - lnu;
+    },
+  };
+}
