@@ -5,6 +5,7 @@ import { runHalos } from './commands/halos.js';
 import { runRarest } from './commands/rarest.js';
 import { runStars } from './commands/stars.js';
 import { runMass } from './commands/mass.js';
+import { runAssess } from './commands/assess.js';
 
 const COMMANDS: Record<string, (argv: string[]) => string | Promise<string>> = {
   cosmo: runCosmo,
@@ -12,6 +13,7 @@ const COMMANDS: Record<string, (argv: string[]) => string | Promise<string>> = {
   rarest: runRarest,
   stars: runStars,
   mass: runMass,
+  assess: runAssess,
 };
 
 export const MAIN_HELP = `Baryon Audit — can ΛCDM's haloes hold the stars reported in early galaxies?
@@ -21,7 +23,8 @@ Usage: npm run -s cli -- <subcommand> [flags]     (--help on any subcommand)
   halos    halo mass function, n(>M) and ρ(>M)
   rarest   mass distribution of the most massive halo in a survey volume
   stars    population synthesis per IMF: L_ν, surviving mass, mass-to-light
-  mass     stellar mass per IMF from a magnitude or luminosity`;
+  mass     stellar mass per IMF from a magnitude or luminosity
+  assess   the audit: required efficiency, verdicts and their causes for a sample`;
 
 export function registerCommand(name: string, run: (argv: string[]) => string | Promise<string>): void {
   COMMANDS[name] = run;

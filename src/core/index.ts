@@ -4,3 +4,4 @@ export * from './numeric/index.js';
 export * from './power/index.js';
 export * from './halos/index.js';
 export * from './stars/index.js';
+export * from './audit/index.js';

@@ -26,6 +26,10 @@ export interface HaloSlice {
   nAbove(massMsun: number): number;
   /** ρ(>M) = ∫_M^{1e19 Msun} M' dn/dlnM' dlnM', Msun per comoving Mpc³. */
   rhoAbove(massMsun: number): number;
+  /** n(>M) at every σ-table node (log10 M = table.log10M), Mpc⁻³. */
+  readonly nAboveNodes: Float64Array;
+  /** ρ(>M) at every σ-table node, Msun Mpc⁻³. */
+  readonly rhoAboveNodes: Float64Array;
 }
 
 export interface HaloModel {
@@ -107,6 +111,8 @@ export function makeHaloModel(options: HaloModelOptions): HaloModel {
     };
     return {
       z,
+      nAboveNodes: cumN,
+      rhoAboveNodes: cumR,
       dndlnM: (m) => dnAt(m, d, dc, z),
       nAbove: (m) => above(m)[0],
       rhoAbove: (m) => above(m)[1],

@@ -1,0 +1,149 @@
+import { readFileSync } from 'node:fs';
+import {
+  auditCsv,
+  auditMarkdown,
+  DEFAULT_IMFS,
+  parseSurveys,
+  runAudit,
+  validateRecord,
+  type AuditChoices,
+  type Survey,
+} from '../../core/audit/index.js';
+import { DEMO_SAMPLE_CSV, DEMO_SURVEY } from '../../demo/demo-sample.js';
+import { COSMOLOGY_HELP, COSMOLOGY_OPTIONS, cosmologyFrom, format, num, parse } from '../args.js';
+import { CliError } from '../cli-error.js';
+import { HALO_HELP, HALO_OPTIONS, haloChoices } from '../halo-options.js';
+import { toJson } from '../output.js';
+import { imfList, sfhFrom, STAR_HELP, STAR_OPTIONS } from '../star-options.js';
+
+export const ASSESS_HELP = `Usage: assess SAMPLE.csv --area-arcmin2 40 --z-range 7:11 [--imf ...] [--eps-ref 0.3] [--quantile 0.997]
+              [--draws 20000] [--seed 1] [--format json|csv|md]
+       assess --demo [--format md]            the embedded invented demo field and sample
+       assess --record RECORD.json            re-run a saved record (reproduces its numbers exactly)
+For every galaxy: the stellar mass under each IMF (Monte Carlo over redshift, errors and ages),
+the efficiency ε needed against the baryons of the rarest halo in its redshift slice, verdicts
+(within budget / strained / over budget) and what drives a tension; for the sample, cumulative
+stellar densities against the ΛCDM limits. Rejected rows stay in the output with their reasons.
+
+Survey and choices:
+  --area-arcmin2 A     survey area [arcmin^2]
+  --z-range A:B        survey redshift range
+  --survey-name NAME   name of the default survey (default "survey")
+  --surveys FILE       CSV of named surveys (name,area_arcmin2,z_min,z_max) for the sample's survey column
+  --eps-ref E          reference efficiency (default 0.3)
+  --quantile Q         rarest-halo quantile (default 0.997)
+  --draws N            Monte Carlo draws per galaxy (default 20000)
+  --seed S             random seed (default 1)
+  --slice-dz D         width of each galaxy's redshift slice (default 1)
+  --formation-z Z      formation redshift for the time budget (default 30)
+  --z-bins A:B,C:D     redshift bins for the sample densities (default: the survey range)
+
+${STAR_HELP}
+
+${HALO_HELP}
+
+${COSMOLOGY_HELP}`;
+
+function readText(path: string, flag: string): string {
+  try {
+    return readFileSync(path, 'utf8');
+  } catch (e) {
+    throw new CliError(`${flag}: cannot read ${path} (${(e as NodeJS.ErrnoException).code ?? 'error'})`);
+  }
+}
+
+function range(flag: string, raw: string): [number, number] {
+  const parts = raw.split(':');
+  if (parts.length !== 2) throw new CliError(`--${flag}: "${raw}" must be A:B`);
+  const a = num(flag, parts[0], { min: 0, max: 30 });
+  const b = num(flag, parts[1], { min: 0, max: 30 });
+  if (!(b > a)) throw new CliError(`--${flag}: need A < B (got ${raw})`);
+  return [a, b];
+}
+
+export function runAssess(argv: string[]): string {
+  const { values, positionals } = parse(
+    argv,
+    {
+      demo: { type: 'boolean' },
+      record: { type: 'string' },
+      'area-arcmin2': { type: 'string' },
+      'z-range': { type: 'string' },
+      'survey-name': { type: 'string' },
+      surveys: { type: 'string' },
+      'eps-ref': { type: 'string' },
+      quantile: { type: 'string' },
+      draws: { type: 'string' },
+      seed: { type: 'string' },
+      'slice-dz': { type: 'string' },
+      'formation-z': { type: 'string' },
+      'z-bins': { type: 'string' },
+      ...STAR_OPTIONS,
+      ...HALO_OPTIONS,
+      ...COSMOLOGY_OPTIONS,
+    },
+    true,
+  );
+  if (values.help) return ASSESS_HELP;
+  const fmt = format(values, ['json', 'csv', 'md']);
+  let csv: string;
+  let choices: AuditChoices;
+  if (typeof values.record === 'string') {
+    let rec;
+    try {
+      rec = validateRecord(JSON.parse(readText(values.record, '--record')));
+    } catch (e) {
+      if (e instanceof CliError) throw e;
+      throw new CliError(`--record ${values.record}: ${(e as Error).message}`);
+    }
+    csv = rec.sample_csv;
+    choices = rec.choices;
+  } else {
+    if (positionals.length > 1) throw new CliError(`give one sample file (got ${positionals.length})`);
+    const demo = values.demo === true;
+    if (!demo && positionals.length === 0) throw new CliError('give a sample file (SAMPLE.csv), --demo or --record FILE');
+    csv = demo ? DEMO_SAMPLE_CSV : readText(positionals[0], 'sample');
+    let survey: Survey;
+    if (demo && values['area-arcmin2'] === undefined) survey = DEMO_SURVEY;
+    else {
+      if (values['area-arcmin2'] === undefined) throw new CliError('--area-arcmin2 is required (survey area in arcmin^2)');
+      if (values['z-range'] === undefined) throw new CliError('--z-range A:B is required (survey redshift range)');
+      const [zMin, zMax] = range('z-range', String(values['z-range']));
+      survey = { name: typeof values['survey-name'] === 'string' ? values['survey-name'] : 'survey', areaArcmin2: num('area-arcmin2', values['area-arcmin2'], { gt: 0, max: 148510660.5 }), zMin, zMax };
+    }
+    let surveys: Survey[] = [];
+    if (typeof values.surveys === 'string') {
+      const parsed = parseSurveys(readText(values.surveys, '--surveys'));
+      if (parsed.errors.length) throw new CliError(`--surveys ${values.surveys}: ${parsed.errors[0]}`);
+      surveys = parsed.surveys;
+    }
+    const halo = haloChoices(values);
+    const draws = num('draws', values.draws ?? '20000', { min: 100, max: 1e6 });
+    const seed = num('seed', values.seed ?? '1', { min: -(2 ** 31) + 1, max: 2 ** 31 - 1 });
+    if (!Number.isInteger(draws)) throw new CliError(`--draws must be a whole number (got ${values.draws})`);
+    if (!Number.isInteger(seed)) throw new CliError(`--seed must be a whole number (got ${values.seed})`);
+    sfhFrom(values);
+    choices = {
+      cosmology: cosmologyFrom(values),
+      massFunction: halo.massFunction,
+      transfer: halo.transfer,
+      deltaC: halo.deltaC,
+      imfs: imfList(values, DEFAULT_IMFS),
+      sfh: typeof values.sfh === 'string' ? values.sfh : 'constant',
+      metallicity: num('metallicity', values.metallicity ?? '0.02', { min: 1e-4, max: 0.03 }),
+      epsRef: num('eps-ref', values['eps-ref'] ?? '0.3', { gt: 0, max: 1 }),
+      quantile: num('quantile', values.quantile ?? '0.997', { gt: 0, lt: 1 }),
+      draws,
+      seed,
+      sliceDz: num('slice-dz', values['slice-dz'] ?? '1', { gt: 0, max: 5 }),
+      formationZ: num('formation-z', values['formation-z'] ?? '30', { gt: 0, max: 100 }),
+      survey,
+      surveys,
+      zBins: typeof values['z-bins'] === 'string' ? String(values['z-bins']).split(',').map((b) => range('z-bins', b)) : [],
+    };
+  }
+  const result = runAudit(csv, choices);
+  if (fmt === 'csv') return auditCsv(result);
+  if (fmt === 'md') return auditMarkdown(result);
+  return toJson(result);
+}

@@ -1,0 +1,94 @@
+import type { Background } from '../cosmology/background.js';
+import { LYMAN_ALPHA_UM } from '../constants.js';
+import { attenuationMag, type DustSpec } from '../stars/dust.js';
+import { ML_AGE_MIN_MYR } from '../stars/mass-to-light.js';
+import { MUV_REST_UM } from '../stars/mass-estimate.js';
+import { apparentFromAbsolute, lnuFromApparent, MODEL_LAMBDA_MAX_UM } from '../stars/photometry.js';
+import { makeRandom } from './random.js';
+import type { GalaxyInput } from './sample.js';
+
+/**
+ * The Monte Carlo draws of one galaxy, shared by every IMF (common random numbers):
+ * redshift from the primary solution (split normal with σ = z − z_lo below and z_hi − z above; a
+ * point if no interval) or, with probability p_alt, from the alternative (a normal of the same
+ * fractional width in 1+z); population age log-uniform from 1 Myr to the cosmic age at the drawn z;
+ * magnitude, β and reported-mass errors as normals. A muv row is carried as the apparent magnitude it
+ * implies at the nominal z, in the observed band that samples 1500 Å there.
+ */
+export interface GalaxyDraws {
+  readonly n: number;
+  readonly z: Float64Array;
+  readonly ageMyr: Float64Array;
+  readonly alt: Uint8Array;
+  /** For brightness rows: log10 of the dust-corrected L_ν and the rest wavelength; NaN = excluded draw. */
+  readonly log10Lnu: Float64Array;
+  readonly lambdaRestUm: Float64Array;
+  /** For reported-mass rows: log10 M* (under imf_ref) before IMF rescaling. */
+  readonly log10MassRef: Float64Array;
+  /** Number of draws whose band fell outside the model's rest range (excluded). */
+  readonly excluded: number;
+}
+
+export function drawGalaxy(g: GalaxyInput, n: number, seed: number, bg: Background, zOverride?: { z: number; alt: boolean }): GalaxyDraws {
+  const rnd = makeRandom(seed);
+  const z = new Float64Array(n);
+  const age = new Float64Array(n);
+  const alt = new Uint8Array(n);
+  const lL = new Float64Array(n);
+  const lam = new Float64Array(n);
+  const lM = new Float64Array(n);
+  const sLo = g.zLo !== undefined ? g.z - g.zLo : 0;
+  const sHi = g.zHi !== undefined ? g.zHi - g.z : 0;
+  const fracWidth = (0.5 * (sLo + sHi)) / (1 + g.z);
+  const lambdaObs = g.mAB !== undefined ? g.lambdaObsUm! : MUV_REST_UM * (1 + g.z);
+  const mApp = g.mAB ?? (g.muv !== undefined ? apparentFromAbsolute(g.muv, bg.luminosityDistanceMpc(g.z), g.z) : Number.NaN);
+  const dl0 = bg.luminosityDistanceMpc(g.z);
+  let excluded = 0;
+  const l0 = Math.log10(ML_AGE_MIN_MYR);
+  for (let k = 0; k < n; k++) {
+    // Always consume the same number of deviates per draw so that streams stay aligned.
+    const uAlt = rnd.uniform();
+    const gz = rnd.normal();
+    const uAge = rnd.uniform();
+    const gMag = rnd.normal();
+    const gBeta = rnd.normal();
+    const gMass = rnd.normal();
+    let zk: number;
+    let isAlt: boolean;
+    if (zOverride) {
+      zk = zOverride.z;
+      isAlt = zOverride.alt;
+    } else {
+      isAlt = g.zAlt !== undefined && uAlt < g.pAlt;
+      if (isAlt) zk = g.zAlt! + gz * fracWidth * (1 + g.zAlt!);
+      else zk = g.z + gz * (gz < 0 ? sLo : sHi);
+      zk = Math.max(zk, 0.05);
+    }
+    z[k] = zk;
+    alt[k] = isAlt ? 1 : 0;
+    const tMax = bg.ageGyr(zk) * 1e3;
+    age[k] = 10 ** (l0 + uAge * (Math.log10(tMax) - l0));
+    if (g.log10Mstar !== undefined) {
+      let m = g.log10Mstar + gMass * g.log10MstarErr;
+      if (isAlt && g.log10MstarAlt !== undefined) m = g.log10MstarAlt + gMass * g.log10MstarErr;
+      else if (zk !== g.z) m += 2 * Math.log10(bg.luminosityDistanceMpc(zk) / dl0) - Math.log10((1 + zk) / (1 + g.z));
+      lM[k] = m;
+      lL[k] = Number.NaN;
+      lam[k] = Number.NaN;
+    } else {
+      const rest = lambdaObs / (1 + zk);
+      lM[k] = Number.NaN;
+      if (rest < LYMAN_ALPHA_UM || rest > MODEL_LAMBDA_MAX_UM) {
+        lL[k] = Number.NaN;
+        lam[k] = Number.NaN;
+        excluded++;
+        continue;
+      }
+      const m = mApp + gMag * g.magErr;
+      const dust: DustSpec = g.beta !== undefined ? { kind: 'beta', beta: g.beta + gBeta * g.betaErr } : { kind: 'none' };
+      lL[k] = Math.log10(lnuFromApparent(m, bg.luminosityDistanceMpc(zk), zk)) + 0.4 * attenuationMag(dust, rest);
+      lam[k] = rest;
+    }
+  }
+  return { n, z, ageMyr: age, alt, log10Lnu: lL, lambdaRestUm: lam, log10MassRef: lM, excluded };
+}

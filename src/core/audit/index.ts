@@ -1,0 +1,18 @@
+export { runAudit, validateRecord, AuditCancelled, AUDIT_CAUTION, TOOL_NAME, TOOL_VERSION, RECORD_FORMAT } from './run-audit.js';
+export type { AuditRecord, AuditResult, GalaxyRow, AuditHooks } from './run-audit.js';
+export type { AuditChoices } from './choices.js';
+export { DEFAULT_IMFS, RESCALE_REST_UM, validateChoices } from './choices.js';
+export { parseSample, parseNumberCell, KNOWN_COLUMNS } from './sample.js';
+export type { GalaxyInput, ParsedSample, RowProblem, SampleRow } from './sample.js';
+export { parseSurveys, validateSurvey } from './survey.js';
+export type { Survey } from './survey.js';
+export { makeCeilingTable } from './ceiling.js';
+export type { CeilingTable } from './ceiling.js';
+export { boxSigmaDm } from './cosmic-variance.js';
+export { meanAccretionRateMsunYr } from './accretion.js';
+export { binBudget } from './sample-budget.js';
+export type { BinBudget, BudgetPoint } from './sample-budget.js';
+export { verdictFor } from './verdict.js';
+export type { Verdict, Attribution } from './verdict.js';
+export { makeRandom, mixSeed } from './random.js';
+export { auditCsv, auditMarkdown } from './report.js';
