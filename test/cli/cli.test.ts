@@ -1,0 +1,118 @@
+import { mkdtempSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { main } from '../../src/cli/main.js';
+
+async function run(args: string[]): Promise<{ code: number; out: string; err: string }> {
+  let out = '';
+  let err = '';
+  const code = await main(args, (s) => (out += s + '\n'), (s) => (err += s + '\n'));
+  return { code, out, err };
+}
+const tmp = mkdtempSync(join(tmpdir(), 'baryon-audit-'));
+
+describe('CLI contract', () => {
+  it('cosmo --z 0,1,10 gives the documented JSON fields', async () => {
+    const r = await run(['cosmo', '--z', '0,1,10']);
+    expect(r.code).toBe(0);
+    const j = JSON.parse(r.out);
+    expect(j.cosmology.h0_km_s_mpc).toBe(67.66);
+    expect(j.rows).toHaveLength(3);
+    expect(Object.keys(j.rows[1])).toEqual(['z', 'age_gyr', 'lookback_gyr', 'comoving_distance_mpc', 'luminosity_distance_mpc', 'angular_diameter_distance_mpc', 'dvdz_mpc3_per_sr']);
+  });
+  it('halos --mass A:B:N gives N log-spaced masses inclusive, per redshift', async () => {
+    const r = await run(['halos', '--z', '0,10', '--mass', '1e8:1e15:29', '--model', 'press-schechter', '--transfer', 'bbks']);
+    const j = JSON.parse(r.out);
+    expect(j.rows).toHaveLength(58);
+    expect(j.rows[0].mass_msun).toBeCloseTo(1e8, -1);
+    expect(j.rows[28].mass_msun / 1e15).toBeCloseTo(1, 10);
+    expect(Object.keys(j.rows[0])).toEqual(['z', 'mass_msun', 'sigma', 'dndlog10m_mpc3', 'n_above_mpc3', 'rho_above_msun_mpc3']);
+  });
+  it('rarest gives increasing masses for increasing quantiles over the survey volume', async () => {
+    const j = JSON.parse((await run(['rarest', '--z-min', '9', '--z-max', '11', '--area-arcmin2', '40', '--quantiles', '0.5,0.84,0.997'])).out);
+    expect(j.volume_mpc3).toBeGreaterThan(0);
+    expect(j.quantiles.map((q: { q: number }) => q.q)).toEqual([0.5, 0.84, 0.997]);
+    expect(j.quantiles[2].mass_msun).toBeGreaterThan(j.quantiles[0].mass_msun);
+  });
+  it('stars gives one row per IMF with the documented fields; sfr_per_lnu only for constant SFR', async () => {
+    const j = JSON.parse((await run(['stars', '--imf', 'salpeter,kroupa,chabrier', '--sfh', 'constant', '--age-myr', '100', '--wavelength-um', '0.15'])).out);
+    expect(j.rows.map((r: { imf: string }) => r.imf)).toEqual(['salpeter', 'kroupa', 'chabrier']);
+    expect(Object.keys(j.rows[0])).toEqual(['imf', 'sfh', 'age_myr', 'wavelength_um', 'lnu_per_msun_formed', 'surviving_fraction', 'returned_fraction', 'mass_to_light', 'sfr_per_lnu']);
+    const burst = JSON.parse((await run(['stars', '--sfh', 'burst'])).out);
+    expect(burst.rows[0].sfr_per_lnu).toBeNull();
+  });
+  it('stars --list-imfs lists every preset with top_heavy and source', async () => {
+    const j = JSON.parse((await run(['stars', '--list-imfs', '--format', 'json'])).out);
+    expect(j.imfs.filter((i: { top_heavy: boolean }) => i.top_heavy).length).toBeGreaterThanOrEqual(2);
+    for (const i of j.imfs) expect(i.source).toMatch(/\d{4}/);
+  });
+  it('mass echoes the inputs, gives best/min/max per IMF and the caution', async () => {
+    const j = JSON.parse((await run(['mass', '--z', '9.1', '--m-ab', '26.2', '--lambda-obs-um', '1.5', '--beta', '-2.0', '--imf', 'salpeter,chabrier', '--sfh', 'constant'])).out);
+    expect(j.inputs).toMatchObject({ z: 9.1, m_ab: 26.2, lambda_obs_um: 1.5, beta: -2 });
+    expect(j.rows[0].log_mstar_min).toBeLessThanOrEqual(j.rows[0].log_mstar_best);
+    expect(j.rows[0].log_mstar_best).toBeLessThanOrEqual(j.rows[0].log_mstar_max);
+    expect(j.caution).toMatch(/depend/);
+  });
+  it('assess on a sample file gives the documented shape, with rejected rows kept, exit 0', async () => {
+    const f = join(tmp, 's.csv');
+    writeFileSync(f, 'id,z,muv\nA,9,-20\nB,x,-20\n');
+    const r = await run(['assess', f, '--area-arcmin2', '40', '--z-range', '7:11', '--draws', '500', '--imf', 'salpeter,top-heavy-flat']);
+    expect(r.code).toBe(0);
+    const j = JSON.parse(r.out);
+    expect(j.galaxies.map((g: { status: string }) => g.status)).toEqual(['ok', 'rejected']);
+    expect(Object.keys(j.galaxies[0].imf.salpeter)).toEqual(expect.arrayContaining(['verdict', 'log_mstar_median', 'eps_required_median', 'eps_required_p05', 'p_over_budget', 'p_strained']));
+    expect(j.galaxies[1].errors[0]).toMatchObject({ row: 2, column: 'z' });
+    expect(j.record.sample_csv).toContain('A,9,-20');
+    const rec = join(tmp, 'rec.json');
+    writeFileSync(rec, JSON.stringify(j.record));
+    const again = JSON.parse((await run(['assess', '--record', rec])).out);
+    expect(JSON.stringify(again.galaxies)).toBe(JSON.stringify(j.galaxies));
+  });
+  it('every subcommand answers --help', async () => {
+    for (const c of ['cosmo', 'halos', 'rarest', 'stars', 'mass', 'assess']) {
+      const r = await run([c, '--help']);
+      expect(r.code).toBe(0);
+      expect(r.out).toMatch(/Usage:/);
+    }
+  });
+});
+
+describe('CLI errors: exit 2, one line naming the flag, no stack trace, no NaN', () => {
+  const cases: [string[], RegExp][] = [
+    [['cosmo', '--z', '1,x'], /--z/],
+    [['cosmo', '--z', '1', '--omega-b', '0.5', '--omega-m', '0.3'], /--omega-b/],
+    [['cosmo', '--z', '1', '--sigma8', '-1'], /--sigma8/],
+    [['cosmo', '--z', '1', '--h0', 'NaN'], /--h0/],
+    [['cosmo', '--z', '1', '--preset', 'nope'], /--preset/],
+    [['halos', '--z', '1', '--mass', '1e8:1e15:x'], /--mass/],
+    [['halos', '--z', '1', '--model', 'nope'], /--model/],
+    [['rarest', '--z-min', '11', '--z-max', '9', '--area-arcmin2', '40'], /--z-max/],
+    [['rarest', '--z-min', '9', '--z-max', '11', '--area-arcmin2', '40', '--quantiles', '1.2'], /--quantiles/],
+    [['stars', '--imf', 'nope'], /--imf/],
+    [['mass', '--z', '9', '--m-ab', '26', '--lambda-obs-um', '1.0'], /Lyman-α/],
+    [['mass', '--z', '9'], /brightness/],
+    [['assess', '/nonexistent.csv', '--area-arcmin2', '40', '--z-range', '7:11'], /cannot read/],
+    [['assess', '--demo', '--eps-ref', '2'], /--eps-ref/],
+    [['assess', '--record', '/nonexistent.json'], /--record/],
+    [['nope'], /unknown subcommand/],
+    [['cosmo', '--bogus', '1'], /bogus/],
+  ];
+  for (const [args, re] of cases) {
+    it(args.join(' '), async () => {
+      const r = await run(args);
+      expect(r.code).toBe(2);
+      expect(r.err.trim().split('\n')).toHaveLength(1);
+      expect(r.err).toMatch(re);
+      expect(r.err).not.toMatch(/\n\s+at /);
+      expect(r.out).not.toMatch(/NaN/);
+    });
+  }
+  it('a tampered record names the field', async () => {
+    const f = join(tmp, 'bad.json');
+    writeFileSync(f, JSON.stringify({ tool: 'baryon-audit', format: 1, sample_csv: 'id,z\n', choices: { massFunction: 'sheth-tormen' } }));
+    const r = await run(['assess', '--record', f]);
+    expect(r.code).toBe(2);
+    expect(r.err).toMatch(/record\.choices\.sfh/);
+  });
+});
