@@ -2,6 +2,7 @@ import { fractionAbove, quantileSorted } from '../numeric/quantile.js';
 import type { HaloModel } from '../halos/halo-model.js';
 import { biasSmt01 } from '../halos/bias.js';
 import type { PopulationCache } from '../stars/population-cache.js';
+import type { MassToLightTable } from '../stars/mass-to-light.js';
 import { isTopHeavy } from '../stars/imf-presets.js';
 import type { Sfh } from '../stars/sfh.js';
 import { meanAccretionRateMsunYr } from './accretion.js';
@@ -61,13 +62,12 @@ export interface AuditContext {
   sigmaDmFor(surveyName: string | undefined, z: number): number;
 }
 
-function log10MassForImf(ctx: AuditContext, g: GalaxyInput, d: GalaxyDraws, imf: string, k: number): number {
+/** log10 M⋆ of draw k under one IMF (table = that IMF's M/L table, ref = the imf_ref table for reported masses). */
+function log10MassForImf(g: GalaxyInput, d: GalaxyDraws, table: MassToLightTable, ref: MassToLightTable | undefined, k: number): number {
   if (g.log10Mstar !== undefined) {
-    const from = ctx.cache.table(g.imfRef!, g.z, ctx.sfh).logMassToLight(d.ageMyr[k], RESCALE_REST_UM);
-    const to = ctx.cache.table(imf, g.z, ctx.sfh).logMassToLight(d.ageMyr[k], RESCALE_REST_UM);
-    return d.log10MassRef[k] + to - from;
+    return d.log10MassRef[k] + table.logMassToLight(d.ageMyr[k], RESCALE_REST_UM) - ref!.logMassToLight(d.ageMyr[k], RESCALE_REST_UM);
   }
-  return d.log10Lnu[k] + ctx.cache.table(imf, g.z, ctx.sfh).logMassToLight(d.ageMyr[k], d.lambdaRestUm[k]);
+  return d.log10Lnu[k] + table.logMassToLight(d.ageMyr[k], d.lambdaRestUm[k]);
 }
 
 function sortedMedian(a: Float64Array): number {
@@ -103,12 +103,16 @@ export function auditGalaxy(ctx: AuditContext, g: GalaxyInput, index: number): G
   const imfResults: Record<string, ImfResult> = {};
   let eddington = { slope_alpha: 0, sigma_dex: 0, shift_dex: 0, method: '' };
   let headlineLogM = Number.NaN;
+  const sl = halo.slice(g.z);
+  const tableOf = (imf: string): MassToLightTable => ctx.cache.table(imf, g.z, ctx.sfh);
+  const refTable = g.imfRef ? tableOf(g.imfRef) : undefined;
   for (const imf of imfs) {
+    const tab = tableOf(imf);
     const lm = new Float64Array(valid.length);
     const eps = new Float64Array(valid.length);
     const epsCv = new Float64Array(valid.length);
     valid.forEach((k, i) => {
-      lm[i] = log10MassForImf(ctx, g, d, imf, k);
+      lm[i] = log10MassForImf(g, d, tab, refTable, k);
       eps[i] = 10 ** (lm[i] - logCeil[i]);
       epsCv[i] = 10 ** (lm[i] - logCeilCv[i]);
     });
@@ -123,7 +127,6 @@ export function auditGalaxy(ctx: AuditContext, g: GalaxyInput, index: number): G
     const sigmaDex = g.log10Mstar !== undefined ? g.log10MstarErr : 0.4 * g.magErr;
     const epsHost = Math.min(1, Math.max(med, choices.epsRef));
     const mHost = Math.min(Math.max(10 ** lmMed / (fb * epsHost), 1e3), 1e18);
-    const sl = halo.slice(g.z);
     const alpha = -Math.log(sl.dndlnM(mHost * 1.1) / sl.dndlnM(mHost / 1.1)) / Math.log(1.21);
     const shift = alpha * sigmaDex * sigmaDex * Math.LN10;
     if (imf === headline) {
@@ -155,13 +158,14 @@ export function auditGalaxy(ctx: AuditContext, g: GalaxyInput, index: number): G
   const fixedChecks: [number, 'z_alt' | 'z_lo', boolean][] = [];
   if (g.zAlt !== undefined) fixedChecks.push([g.zAlt, 'z_alt', true]);
   if (g.zLo !== undefined && g.zLo < g.z) fixedChecks.push([Math.max(g.zLo, 0.05), 'z_lo', false]);
+  const headTable = tableOf(headline);
   for (const [zf, kind, isAlt] of fixedChecks) {
     const df = drawGalaxy(g, Math.min(n, 4000), seed, halo.background, { z: zf, alt: isAlt });
     const eps: number[] = [];
     const lc = Math.log10(fb * ceil.haloMassAtQuantile(zf));
     for (let k = 0; k < df.n; k++) {
       if (g.log10Mstar === undefined && !Number.isFinite(df.log10Lnu[k])) continue;
-      eps.push(10 ** (log10MassForImf(ctx, g, df, headline, k) - lc));
+      eps.push(10 ** (log10MassForImf(g, df, headTable, refTable, k) - lc));
     }
     if (!eps.length) {
       notes.push(`at ${kind} = ${zf} the band falls outside the model's rest range; that solution was not evaluated`);

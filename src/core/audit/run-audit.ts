@@ -108,7 +108,7 @@ export function runAudit(sampleCsv: string, choices: AuditChoices, hooks: AuditH
       const memo = new Map<string, number>();
       return (name: string | undefined, z: number): number => {
         const s = surveyOf(name);
-        const zr = Math.round(z * 10) / 10;
+        const zr = Math.round(z * 4) / 4; // σ_dm changes slowly with z: evaluated on a 0.25 grid
         const key = `${s.name}@${zr}`;
         let v = memo.get(key);
         if (v === undefined) {
