@@ -21,6 +21,8 @@ export interface CeilingTable {
   readonly sliceDz: number;
   /** Halo mass (Msun) of the most massive halo at quantile q in the slice around z. */
   haloMassAtQuantile(z: number): number;
+  /** Halo mass at any other quantile q2 of the same slice distribution (for figure bands). */
+  haloMassAt(z: number, q2: number): number;
   /** Same with cosmic variance widening, given σ_dm of the slice at z. */
   haloMassAtQuantileCv(z: number, sigmaDm: number): number;
   /** Expected number of haloes above M in the slice around z (nearest grid centre). */
@@ -74,7 +76,7 @@ export function makeCeilingTable(halo: HaloModel, areaArcmin2: number, quantile:
     countsCache.set(jc, out);
     return out;
   };
-  const target = -Math.log(quantile);
+  let target = -Math.log(quantile);
   /** log10 M where an increasing CDF sampled at the mass nodes crosses q. */
   const crossing = (cdf: (i: number) => number): number => {
     let prev = cdf(0);
@@ -141,6 +143,16 @@ export function makeCeilingTable(halo: HaloModel, areaArcmin2: number, quantile:
     quantile,
     sliceDz,
     haloMassAtQuantile: (z) => interp(z, poissonCached),
+    haloMassAt: (z, q2) => {
+      if (!(q2 > 0 && q2 < 1)) throw new RangeError(`quantile must lie strictly between 0 and 1 (got ${q2})`);
+      const keep = target;
+      target = -Math.log(q2);
+      try {
+        return interp(z, poissonLogM);
+      } finally {
+        target = keep;
+      }
+    },
     haloMassAtQuantileCv: (z, sigmaDm) =>
       interp(z, (jc) => {
         const key = `${jc}|${sigmaDm}`;

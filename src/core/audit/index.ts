@@ -1,5 +1,5 @@
-export { runAudit, validateRecord, AuditCancelled, AUDIT_CAUTION, TOOL_NAME, TOOL_VERSION, RECORD_FORMAT } from './run-audit.js';
-export type { AuditRecord, AuditResult, GalaxyRow, AuditHooks } from './run-audit.js';
+export { runAudit, prepareAudit, auditRow, finishAudit, validateRecord, AuditCancelled, AUDIT_CAUTION, TOOL_NAME, TOOL_VERSION, RECORD_FORMAT } from './run-audit.js';
+export type { AuditRecord, AuditResult, GalaxyRow, AuditHooks, PreparedAudit } from './run-audit.js';
 export type { AuditChoices } from './choices.js';
 export { DEFAULT_IMFS, RESCALE_REST_UM, validateChoices } from './choices.js';
 export { parseSample, parseNumberCell, KNOWN_COLUMNS } from './sample.js';
@@ -16,3 +16,5 @@ export { verdictFor } from './verdict.js';
 export type { Verdict, Attribution } from './verdict.js';
 export { makeRandom, mixSeed } from './random.js';
 export { auditCsv, auditMarkdown } from './report.js';
+export { ceilingCurves, galaxyPoints } from './figures.js';
+export type { CeilingCurves, GalaxyPoints } from './figures.js';

@@ -1,12 +1,12 @@
-import { makeHaloModel } from '../halos/halo-model.js';
-import { makePopulationCache } from '../stars/population-cache.js';
+import { makeHaloModel, type HaloModel } from '../halos/halo-model.js';
+import { makePopulationCache, type PopulationCache } from '../stars/population-cache.js';
 import { IMF_NAMES, resolveImf } from '../stars/imf-presets.js';
 import { parseSfh } from '../stars/sfh.js';
 import { makeCeilingTable, type CeilingTable } from './ceiling.js';
 import { validateChoices, type AuditChoices } from './choices.js';
 import { boxSigmaDm } from './cosmic-variance.js';
 import { auditGalaxy, type AuditContext, type GalaxyAudit } from './galaxy-audit.js';
-import { parseSample, type RowProblem } from './sample.js';
+import { parseSample, type ParsedSample, type RowProblem } from './sample.js';
 import { binBudget, type BinBudget, type BudgetMember } from './sample-budget.js';
 import { validateSurvey, type Survey } from './survey.js';
 import type { Verdict } from './verdict.js';
@@ -66,7 +66,41 @@ const knownImf = (name: string): boolean => {
   }
 };
 
-export function runAudit(sampleCsv: string, choices: AuditChoices, hooks: AuditHooks = {}): AuditResult {
+/** Parsed sample plus the shared machinery (halo model, population tables, ceilings) of one audit. */
+export interface PreparedAudit {
+  readonly sampleCsv: string;
+  readonly choices: AuditChoices;
+  readonly parsed: ParsedSample;
+  readonly ctx: AuditContext;
+}
+
+interface Env {
+  halo: HaloModel;
+  cache: PopulationCache;
+  ceilings: Map<string, CeilingTable>;
+  sigmaDm: Map<string, number>;
+}
+const envMemo = new Map<string, Env>();
+
+/** Halo model, population tables and ceilings are kept between audits with the same physics (up to 4). */
+function envFor(choices: AuditChoices): Env {
+  const key = JSON.stringify([choices.cosmology, choices.transfer, choices.massFunction, choices.deltaC, choices.metallicity]);
+  let e = envMemo.get(key);
+  if (!e) {
+    e = {
+      halo: makeHaloModel({ cosmology: choices.cosmology, transfer: choices.transfer, massFunction: choices.massFunction, deltaC: choices.deltaC }),
+      cache: makePopulationCache(choices.metallicity),
+      ceilings: new Map(),
+      sigmaDm: new Map(),
+    };
+    if (envMemo.size >= 4) envMemo.delete(envMemo.keys().next().value as string);
+    envMemo.set(key, e);
+  }
+  return e;
+}
+
+/** Validates the choices (throws RangeError naming every bad one), parses the sample, builds the shared parts. */
+export function prepareAudit(sampleCsv: string, choices: AuditChoices): PreparedAudit {
   const problems = [...validateChoices(choices), ...validateSurvey(choices.survey, 'default survey'), ...choices.surveys.flatMap((s) => validateSurvey(s))];
   for (const imf of choices.imfs) if (!knownImf(imf)) problems.push(`--imf: unknown IMF "${imf}"`);
   let sfh;
@@ -77,18 +111,17 @@ export function runAudit(sampleCsv: string, choices: AuditChoices, hooks: AuditH
   }
   if (problems.length || !sfh) throw new RangeError(problems.join('; '));
   const parsed = parseSample(sampleCsv, knownImf);
-  const halo = makeHaloModel({ cosmology: choices.cosmology, transfer: choices.transfer, massFunction: choices.massFunction, deltaC: choices.deltaC });
-  const cache = makePopulationCache(choices.metallicity);
+  const env = envFor(choices);
+  const { halo, cache } = env;
   const surveys = new Map<string, Survey>(choices.surveys.map((s) => [s.name, s]));
-  const okRows = parsed.rows.filter((r) => r.status === 'ok');
   let zTop = 1;
-  for (const r of okRows) {
+  for (const r of parsed.rows) {
+    if (r.status !== 'ok') continue;
     const g = r.galaxy!;
     const spread = Math.max(g.zHi !== undefined ? g.zHi - g.z : 0, g.z - (g.zLo ?? g.z));
-    zTop = Math.max(zTop, g.z + 5 * spread, (g.zAlt ?? 0) * 1.3);
+    zTop = Math.max(zTop, g.z + 5 * spread, (g.zAlt ?? 0) * 1.3, choices.survey.zMax + 1);
   }
-  zTop = Math.min(zTop + choices.sliceDz, 30.5);
-  const ceilings = new Map<string, CeilingTable>();
+  zTop = Math.min(Math.ceil(zTop + choices.sliceDz), 30.5);
   const surveyOf = (name: string | undefined): Survey => (name ? surveys.get(name)! : choices.survey);
   const ctx: AuditContext = {
     halo,
@@ -97,52 +130,55 @@ export function runAudit(sampleCsv: string, choices: AuditChoices, hooks: AuditH
     choices,
     ceilingFor: (name) => {
       const s = surveyOf(name);
-      let c = ceilings.get(s.name);
+      const key = JSON.stringify([s.areaArcmin2, choices.quantile, zTop, choices.sliceDz]);
+      let c = env.ceilings.get(key);
       if (!c) {
         c = makeCeilingTable(halo, s.areaArcmin2, choices.quantile, 0.05, zTop, choices.sliceDz);
-        ceilings.set(s.name, c);
+        if (env.ceilings.size > 16) env.ceilings.clear();
+        env.ceilings.set(key, c);
       }
       return c;
     },
-    sigmaDmFor: (() => {
-      const memo = new Map<string, number>();
-      return (name: string | undefined, z: number): number => {
-        const s = surveyOf(name);
-        const zr = Math.round(z * 4) / 4; // σ_dm changes slowly with z: evaluated on a 0.25 grid
-        const key = `${s.name}@${zr}`;
-        let v = memo.get(key);
-        if (v === undefined) {
-          const bg = halo.background;
-          const half = choices.sliceDz / 2;
-          const lPerp = bg.transverseComovingDistanceMpc(zr) * Math.sqrt(s.areaArcmin2) * (Math.PI / 10800);
-          const lz = bg.comovingDistanceMpc(zr + half) - bg.comovingDistanceMpc(Math.max(0, zr - half));
-          v = boxSigmaDm(halo.power, lPerp, lz) * halo.growth.d(zr);
-          memo.set(key, v);
-        }
-        return v;
-      };
-    })(),
-  };
-  const galaxies: GalaxyRow[] = [];
-  let done = 0;
-  for (const r of parsed.rows) {
-    if (hooks.isCancelled?.()) throw new AuditCancelled();
-    const base = { row: r.row, id: (r.raw.id ?? '').trim(), input: r.raw, survey: r.galaxy?.survey ?? choices.survey.name };
-    if (r.status === 'rejected') {
-      galaxies.push({ ...base, status: 'rejected', errors: [...r.errors] });
-    } else if (r.galaxy!.survey && !surveys.has(r.galaxy!.survey)) {
-      galaxies.push({ ...base, status: 'rejected', errors: [{ row: r.row, column: 'survey', reason: `"${r.galaxy!.survey}" is not in the surveys file (known: ${[...surveys.keys()].join(', ') || 'none'})` }] });
-    } else {
-      try {
-        const a = auditGalaxy(ctx, r.galaxy!, r.row);
-        galaxies.push({ ...base, status: 'ok', errors: [], ...a });
-      } catch (e) {
-        if (!(e instanceof RangeError)) throw e;
-        galaxies.push({ ...base, status: 'rejected', errors: [{ row: r.row, column: '(model)', reason: e.message }] });
+    sigmaDmFor: (name, z) => {
+      const s = surveyOf(name);
+      const zr = Math.round(z * 4) / 4; // σ_dm changes slowly with z: evaluated on a 0.25 grid
+      const key = `${s.areaArcmin2}|${choices.sliceDz}|${zr}`;
+      let v = env.sigmaDm.get(key);
+      if (v === undefined) {
+        const bg = halo.background;
+        const half = choices.sliceDz / 2;
+        const lPerp = bg.transverseComovingDistanceMpc(zr) * Math.sqrt(s.areaArcmin2) * (Math.PI / 10800);
+        const lz = bg.comovingDistanceMpc(zr + half) - bg.comovingDistanceMpc(Math.max(0, zr - half));
+        v = boxSigmaDm(halo.power, lPerp, lz) * halo.growth.d(zr);
+        env.sigmaDm.set(key, v);
       }
-    }
-    hooks.onProgress?.(++done, parsed.rows.length);
+      return v;
+    },
+  };
+  return { sampleCsv, choices, parsed, ctx };
+}
+
+/** Audits one parsed row (by its position in parsed.rows). */
+export function auditRow(prep: PreparedAudit, index: number): GalaxyRow {
+  const r = prep.parsed.rows[index];
+  const choices = prep.choices;
+  const named = new Set(choices.surveys.map((s) => s.name));
+  const base = { row: r.row, id: (r.raw.id ?? '').trim(), input: r.raw, survey: r.galaxy?.survey ?? choices.survey.name };
+  if (r.status === 'rejected') return { ...base, status: 'rejected', errors: [...r.errors] };
+  if (r.galaxy!.survey && !named.has(r.galaxy!.survey)) {
+    return { ...base, status: 'rejected', errors: [{ row: r.row, column: 'survey', reason: `"${r.galaxy!.survey}" is not in the surveys file (known: ${[...named].join(', ') || 'none'})` }] };
   }
+  try {
+    return { ...base, status: 'ok', errors: [], ...auditGalaxy(prep.ctx, r.galaxy!, r.row) };
+  } catch (e) {
+    if (!(e instanceof RangeError)) throw e;
+    return { ...base, status: 'rejected', errors: [{ row: r.row, column: '(model)', reason: e.message }] };
+  }
+}
+
+/** Sample-level budgets and the record, from every row's result. */
+export function finishAudit(prep: PreparedAudit, galaxies: GalaxyRow[]): AuditResult {
+  const { choices, parsed } = prep;
   const binsSpec = choices.zBins.length ? choices.zBins : [[choices.survey.zMin, choices.survey.zMax] as const];
   const bins = binsSpec.map(([z0, z1]) => {
     const members: BudgetMember[] = [];
@@ -153,7 +189,7 @@ export function runAudit(sampleCsv: string, choices: AuditChoices, hooks: AuditH
       const h = g.imf![g.headline_imf!];
       members.push({ id: g.id, log10M: h.log_mstar_median, log10MLo: h.log_mstar_p16, log10MHi: h.log_mstar_p84 });
     }
-    return binBudget(halo, choices.survey.areaArcmin2, z0, z1, choices.epsRef, members);
+    return binBudget(prep.ctx.halo, choices.survey.areaArcmin2, z0, z1, choices.epsRef, members);
   });
   return {
     galaxies,
@@ -165,8 +201,20 @@ export function runAudit(sampleCsv: string, choices: AuditChoices, hooks: AuditH
       file_errors: parsed.fileErrors,
     },
     caution: AUDIT_CAUTION,
-    record: { tool: TOOL_NAME, version: TOOL_VERSION, format: RECORD_FORMAT, sample_csv: sampleCsv, choices },
+    record: { tool: TOOL_NAME, version: TOOL_VERSION, format: RECORD_FORMAT, sample_csv: prep.sampleCsv, choices },
   };
+}
+
+export function runAudit(sampleCsv: string, choices: AuditChoices, hooks: AuditHooks = {}): AuditResult {
+  const prep = prepareAudit(sampleCsv, choices);
+  const galaxies: GalaxyRow[] = [];
+  const n = prep.parsed.rows.length;
+  for (let i = 0; i < n; i++) {
+    if (hooks.isCancelled?.()) throw new AuditCancelled();
+    galaxies.push(auditRow(prep, i));
+    hooks.onProgress?.(i + 1, n);
+  }
+  return finishAudit(prep, galaxies);
 }
 
 /** Checks a record read back from JSON before re-running it; messages name the field. */

@@ -53,12 +53,20 @@ export interface HaloModel {
 
 const GL_N = 4;
 
-export function makeHaloModel(options: HaloModelOptions): HaloModel {
+/** Pieces that do not depend on the mass function, to share between models of one cosmology. */
+export interface HaloModelShared {
+  readonly background: Background;
+  readonly growth: Growth;
+  readonly power: LinearPower;
+  readonly table: SigmaTable;
+}
+
+export function makeHaloModel(options: HaloModelOptions, shared?: HaloModelShared): HaloModel {
   const p = options.cosmology;
-  const background = makeBackground(p);
-  const growth = makeGrowth(p);
-  const power = makeLinearPower(p, options.transfer);
-  const table = makeSigmaTable(power);
+  const background = shared?.background ?? makeBackground(p);
+  const growth = shared?.growth ?? makeGrowth(p);
+  const power = shared?.power ?? makeLinearPower(p, options.transfer);
+  const table = shared?.table ?? makeSigmaTable(power);
   const model = massFunctionByName(options.massFunction);
   const dcSpec = options.deltaC ?? DEFAULT_DELTA_C;
   const rho = table.rhoMMsunMpc3;

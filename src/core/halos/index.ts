@@ -10,6 +10,6 @@ export type { BiasName } from './bias.js';
 export { DELTA_C_EDS, DEFAULT_DELTA_C, deltaCOmegaM } from './collapse-threshold.js';
 export type { DeltaCSpec } from './collapse-threshold.js';
 export { makeHaloModel } from './halo-model.js';
-export type { HaloModel, HaloModelOptions, HaloSlice } from './halo-model.js';
+export type { HaloModel, HaloModelOptions, HaloSlice, HaloModelShared } from './halo-model.js';
 export { makeSurveyHalos } from './survey-halos.js';
 export type { SurveyHalos } from './survey-halos.js';
