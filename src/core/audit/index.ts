@@ -1,5 +1,7 @@
-export { runAudit, prepareAudit, auditRow, finishAudit, validateRecord, AuditCancelled, AUDIT_CAUTION, TOOL_NAME, TOOL_VERSION, RECORD_FORMAT } from './run-audit.js';
-export type { AuditRecord, AuditResult, GalaxyRow, AuditHooks, PreparedAudit } from './run-audit.js';
+export { runAudit, prepareAudit, auditRow, finishAudit, AuditCancelled, AUDIT_CAUTION } from './run-audit.js';
+export type { AuditResult, GalaxyRow, AuditHooks, PreparedAudit } from './run-audit.js';
+export { validateRecord, TOOL_NAME, TOOL_VERSION, RECORD_FORMAT } from './record.js';
+export type { AuditRecord } from './record.js';
 export type { AuditChoices } from './choices.js';
 export { DEFAULT_IMFS, RESCALE_REST_UM, validateChoices } from './choices.js';
 export { parseSample, parseNumberCell, KNOWN_COLUMNS } from './sample.js';

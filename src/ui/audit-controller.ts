@@ -1,0 +1,110 @@
+import * as Comlink from 'comlink';
+import type { AuditChoices } from '../core/audit/choices.js';
+import type { AuditApi, AuditResponse, ExplorerRequest, ExplorerResponse } from '../../workers/audit.worker.js';
+
+export interface ControllerState {
+  readonly status: 'idle' | 'running' | 'done' | 'error';
+  readonly done: number;
+  readonly total: number;
+  readonly response?: AuditResponse;
+  /** What went wrong, in words for the page (input problem or worker failure). */
+  readonly message?: string;
+  readonly restarts: number;
+}
+
+/**
+ * The only UI code that knows about the worker. The latest request wins: a new run cancels the one in
+ * flight and stale answers are dropped. A worker that dies (error event, or killed) is replaced and
+ * the last inputs that completed are run again; the page is told what happened.
+ */
+export class AuditController {
+  private worker!: Worker;
+  private api!: Comlink.Remote<AuditApi>;
+  private seq = 0;
+  private lastGood?: { csv: string; choices: AuditChoices };
+  private pending?: { csv: string; choices: AuditChoices };
+  state: ControllerState = { status: 'idle', done: 0, total: 0, restarts: 0 };
+
+  constructor(private readonly onChange: (s: ControllerState) => void, private readonly makeWorker: () => Worker = () => new Worker(new URL('./audit.worker.js', import.meta.url), { type: 'module' })) {
+    this.start();
+  }
+
+  private set(s: Partial<ControllerState>): void {
+    this.state = { ...this.state, ...s };
+    this.onChange(this.state);
+  }
+
+  private start(): void {
+    this.worker = this.makeWorker();
+    this.worker.addEventListener('error', (e) => {
+      e.preventDefault();
+      this.crashed(`the computation worker failed (${e.message || 'script error'})`);
+    });
+    this.worker.addEventListener('messageerror', () => this.crashed('the computation worker sent a message that could not be read'));
+    this.api = Comlink.wrap<AuditApi>(this.worker);
+  }
+
+  private crashed(why: string): void {
+    this.worker.terminate();
+    this.seq++;
+    this.start();
+    const redo = this.lastGood;
+    this.set({ status: 'error', message: `${why}; it was restarted${redo ? ' and the last good inputs were run again' : ''}.`, restarts: this.state.restarts + 1 });
+    if (redo) void this.run(redo.csv, redo.choices, true);
+  }
+
+  /** Runs an audit; resolves when this request is answered, superseded or failed. */
+  async run(csv: string, choices: AuditChoices, keepMessage = false): Promise<void> {
+    const id = ++this.seq;
+    this.pending = { csv, choices };
+    if (this.state.status === 'running') void this.api.cancel();
+    this.set({ status: 'running', done: 0, total: 0, ...(keepMessage ? {} : { message: undefined }) });
+    try {
+      const resp = await this.api.run(
+        { id, csv, choices },
+        Comlink.proxy((done: number, total: number) => {
+          if (id === this.seq) this.set({ done, total });
+        }),
+      );
+      if (id !== this.seq || resp.status === 'cancelled') return;
+      this.lastGood = { csv, choices };
+      this.set({ status: 'done', response: resp });
+    } catch (e) {
+      if (id !== this.seq) return;
+      this.set({ status: 'error', message: (e as Error).message || String(e) });
+    }
+  }
+
+  /** Stops the run in flight; the last result stays on the page. */
+  cancel(): void {
+    this.seq++;
+    void this.api.cancel();
+    this.set({ status: this.state.response ? 'done' : 'idle', message: 'run cancelled' });
+  }
+
+  explore(req: ExplorerRequest): Promise<ExplorerResponse> {
+    return this.api.explore(req);
+  }
+
+  /** Kills the worker as a crash would (used by the recovery tests and by the page's own watchdog). */
+  kill(): void {
+    this.crashed('the computation worker was stopped');
+  }
+
+  /** Asks the worker to throw (recovery tests). */
+  async failInWorker(): Promise<void> {
+    try {
+      await this.api.fail('deliberate failure');
+    } catch (e) {
+      this.set({ status: 'error', message: `worker error: ${(e as Error).message}` });
+    }
+  }
+
+  get lastInputs(): { csv: string; choices: AuditChoices } | undefined {
+    return this.pending;
+  }
+
+  dispose(): void {
+    this.worker.terminate();
+  }
+}

@@ -1,0 +1,106 @@
+import { expect } from 'chai';
+import '../../src/ui/sample-editor.js';
+import '../../src/ui/results-table.js';
+import '../../src/ui/audit-chart.js';
+import type { AuditChart } from '../../src/ui/audit-chart.js';
+import type { SampleEditor } from '../../src/ui/sample-editor.js';
+import type { ChartModel } from '../../src/ui/chart/chart-config.js';
+
+function mount<T extends HTMLElement>(tag: string): T {
+  const el = document.createElement(tag) as T;
+  document.body.append(el);
+  return el;
+}
+
+describe('<sample-editor>', () => {
+  it('marks the cells named in problems, keeps rejected rows visible, and shows cell markup as text', async () => {
+    const el = mount<SampleEditor>('sample-editor');
+    el.csv = 'id,z,muv\nA,9,-20\n<b>bold</b>,abc,-20\n';
+    el.problems = [{ row: 2, column: 'z', reason: '"abc" is not a number' }];
+    await el.updateComplete;
+    const bad = el.shadowRoot!.querySelectorAll('td.bad input');
+    expect(bad.length).to.equal(1);
+    expect((bad[0] as HTMLInputElement).title).to.contain('not a number');
+    expect(el.shadowRoot!.querySelectorAll('tr.rejected').length).to.be.greaterThan(0);
+    expect(el.shadowRoot!.querySelector('b')).to.equal(null);
+    const idInput = el.shadowRoot!.querySelector('input[aria-label="row 2, id"]') as HTMLInputElement;
+    expect(idInput.value).to.equal('<b>bold</b>');
+    el.remove();
+  });
+
+  it('fires sample-change with the edited CSV on a cell edit, on add and on delete', async () => {
+    const el = mount<SampleEditor>('sample-editor');
+    el.csv = 'id,z,muv\nA,9,-20\n';
+    await el.updateComplete;
+    const seen: string[] = [];
+    el.addEventListener('sample-change', (e) => seen.push((e as CustomEvent).detail.csv));
+    const z = el.shadowRoot!.querySelector('input[aria-label="row 1, z"]') as HTMLInputElement;
+    z.value = '10.5';
+    z.dispatchEvent(new Event('change'));
+    expect(seen[0]).to.contain('A,10.5,-20');
+    (Array.from(el.shadowRoot!.querySelectorAll('button')).find((b) => b.textContent === 'Add row') as HTMLButtonElement).click();
+    expect(seen[1].trim().split('\n')).to.have.length(3);
+    await el.updateComplete;
+    (el.shadowRoot!.querySelector('button[aria-label="delete row 1"]') as HTMLButtonElement).click();
+    expect(seen[2]).not.to.contain('A,10.5');
+    el.remove();
+  });
+
+  it('imports a file through its <input type="file">', async () => {
+    const el = mount<SampleEditor>('sample-editor');
+    await el.updateComplete;
+    const got = new Promise<string>((ok) => el.addEventListener('sample-change', (e) => ok((e as CustomEvent).detail.csv)));
+    const input = el.shadowRoot!.querySelector('input[type=file]') as HTMLInputElement;
+    const dt = new DataTransfer();
+    dt.items.add(new File(['id,z,muv\nF,8,-21\n'], 'f.csv', { type: 'text/csv' }));
+    input.files = dt.files;
+    input.dispatchEvent(new Event('change'));
+    expect(await got).to.contain('F,8,-21');
+    el.remove();
+  });
+});
+
+describe('<audit-chart>', () => {
+  const model: ChartModel = {
+    id: 't',
+    title: 'Test figure',
+    xLabel: 'x [unit]',
+    yLabel: 'y [unit]',
+    caption: 'A caption that states the assumptions.',
+    x: Float64Array.from([1, 2, 3]),
+    lines: [{ label: 'line', color: '#000000' }],
+    lineData: [[1, 2, 3]],
+    markers: [{ label: '● pts', color: '#0072B2', shape: 'circle', x: [1.5, 2.5], y: [1.5, 2.2], yLo: [1.2, 2], yHi: [1.8, 2.4] }],
+  };
+  it('draws with uPlot, reports the markers drawn, and redraws with setData', async () => {
+    const el = mount<AuditChart>('audit-chart');
+    const drawn = new Promise<{ markers: number }>((ok) => el.addEventListener('chart-drawn', (e) => ok((e as CustomEvent).detail), { once: true }));
+    el.model = model;
+    const d = await drawn;
+    expect(d.markers).to.equal(2);
+    const canvas = el.shadowRoot!.querySelector('canvas') as HTMLCanvasElement;
+    expect(canvas.width).to.be.greaterThan(0);
+    const again = new Promise<void>((ok) => el.addEventListener('chart-drawn', () => ok(), { once: true }));
+    el.model = { ...model, lineData: [[3, 2, 1]] };
+    await again;
+    expect(el.shadowRoot!.querySelectorAll('canvas').length).to.equal(1);
+    el.remove();
+  });
+  it('exports an SVG with title, axis labels and caption, and a PNG', async () => {
+    const el = mount<AuditChart>('audit-chart');
+    const drawn = new Promise<void>((ok) => el.addEventListener('chart-drawn', () => ok(), { once: true }));
+    el.model = model;
+    await drawn;
+    const svg = el.svg();
+    expect(svg).to.contain('<svg');
+    expect(svg).to.contain('Test figure');
+    expect(svg).to.contain('x [unit]');
+    expect(svg).to.contain('A caption that states the assumptions.');
+    const doc = new DOMParser().parseFromString(svg, 'image/svg+xml');
+    expect(doc.querySelector('parsererror')).to.equal(null);
+    const png = await el.png();
+    expect(png.type).to.equal('image/png');
+    expect(png.size).to.be.greaterThan(1000);
+    el.remove();
+  });
+});
