@@ -21,6 +21,9 @@ export interface CeilingTable {
   readonly sliceDz: number;
   /** Halo mass (Msun) of the most massive halo at quantile q in the slice around z. */
   haloMassAtQuantile(z: number): number;
+  /** log10 of haloMassAtQuantile (no power of ten: for the Monte Carlo loop). */
+  log10HaloMassAtQuantile(z: number): number;
+  log10HaloMassAtQuantileCv(z: number, sigmaDm: number): number;
   /** Halo mass at any other quantile q2 of the same slice distribution (for figure bands). */
   haloMassAt(z: number, q2: number): number;
   /** Same with cosmic variance widening, given σ_dm of the slice at z. */
@@ -121,22 +124,36 @@ export function makeCeilingTable(halo: HaloModel, areaArcmin2: number, quantile:
       return phi;
     });
   };
-  const interp = (z: number, f: (jc: number) => number): number => {
+  const interp = (z: number, f: (jc: number) => number): number => 10 ** interpLog(z, f);
+  const interpLog = (z: number, f: (jc: number) => number): number => {
     if (!(z >= zLo && z <= zHi)) throw new RangeError(`redshift ${z} is outside the ceiling table (${zLo.toFixed(2)}–${zHi.toFixed(2)})`);
     const x = (z - zLo) / STEP;
     const j = Math.min(Math.floor(x), nz - 2);
     const t = x - j;
-    return 10 ** ((1 - t) * f(j) + t * f(j + 1));
+    return (1 - t) * f(j) + t * f(j + 1);
   };
-  const pCache = new Map<number, number>();
-  const cvCache = new Map<string, number>();
-  const poissonCached = (jc: number): number => {
-    let v = pCache.get(jc);
-    if (v === undefined) {
-      v = poissonLogM(jc);
-      pCache.set(jc, v);
+  /** log10 M per grid node, filled on first use (NaN = not yet computed). */
+  const nodeArray = (fill: (jc: number) => number): ((jc: number) => number) => {
+    const arr = new Float64Array(nz).fill(Number.NaN);
+    return (jc) => {
+      let v = arr[jc];
+      if (v !== v) {
+        v = fill(jc);
+        arr[jc] = v;
+      }
+      return v;
+    };
+  };
+  const poissonCached = nodeArray(poissonLogM);
+  const cvArrays = new Map<number, (jc: number) => number>();
+  const cvFor = (sigmaDm: number): ((jc: number) => number) => {
+    let f = cvArrays.get(sigmaDm);
+    if (!f) {
+      f = nodeArray((jc) => cvLogM(jc, sigmaDm));
+      if (cvArrays.size > 256) cvArrays.clear();
+      cvArrays.set(sigmaDm, f);
     }
-    return v;
+    return f;
   };
   return {
     areaArcmin2,
@@ -153,17 +170,9 @@ export function makeCeilingTable(halo: HaloModel, areaArcmin2: number, quantile:
         target = keep;
       }
     },
-    haloMassAtQuantileCv: (z, sigmaDm) =>
-      interp(z, (jc) => {
-        const key = `${jc}|${sigmaDm}`;
-        let v = cvCache.get(key);
-        if (v === undefined) {
-          v = cvLogM(jc, sigmaDm);
-          if (cvCache.size > 20000) cvCache.clear();
-          cvCache.set(key, v);
-        }
-        return v;
-      }),
+    haloMassAtQuantileCv: (z, sigmaDm) => interp(z, cvFor(sigmaDm)),
+    log10HaloMassAtQuantile: (z) => interpLog(z, poissonCached),
+    log10HaloMassAtQuantileCv: (z, sigmaDm) => interpLog(z, cvFor(sigmaDm)),
     expectedAbove: (m, z) => {
       const jc = Math.min(nz - 1, Math.max(0, Math.round((z - zLo) / STEP)));
       const N = countsAt(jc);

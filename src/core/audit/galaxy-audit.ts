@@ -1,4 +1,5 @@
-import { fractionAbove, quantileSorted } from '../numeric/quantile.js';
+import { quantileSorted } from '../numeric/quantile.js';
+import { quantilesBySelection } from '../numeric/select.js';
 import type { HaloModel } from '../halos/halo-model.js';
 import { biasSmt01 } from '../halos/bias.js';
 import type { PopulationCache } from '../stars/population-cache.js';
@@ -70,9 +71,19 @@ function log10MassForImf(g: GalaxyInput, d: GalaxyDraws, table: MassToLightTable
   return d.log10Lnu[k] + table.logMassToLight(d.ageMyr[k], d.lambdaRestUm[k]);
 }
 
-function sortedMedian(a: Float64Array): number {
-  return quantileSorted(Float64Array.from(a).sort(), 0.5);
+/** Grid positions of every valid draw in the (shared) M/L table grid, computed once for all IMFs. */
+function drawPositions(g: GalaxyInput, d: GalaxyDraws, table: MassToLightTable, valid: readonly number[]): { x: Float64Array; y: Float64Array } {
+  const x = new Float64Array(valid.length);
+  const y = new Float64Array(valid.length);
+  for (let i = 0; i < valid.length; i++) {
+    const k = valid[i];
+    const [a, b] = table.gridPosition(d.ageMyr[k], g.log10Mstar !== undefined ? RESCALE_REST_UM : d.lambdaRestUm[k]);
+    x[i] = a;
+    y[i] = b;
+  }
+  return { x, y };
 }
+
 
 export function auditGalaxy(ctx: AuditContext, g: GalaxyInput, index: number): GalaxyAudit {
   const { choices, halo } = ctx;
@@ -90,13 +101,16 @@ export function auditGalaxy(ctx: AuditContext, g: GalaxyInput, index: number): G
   if (g.log10Mstar !== undefined && g.zAlt !== undefined && g.log10MstarAlt === undefined) {
     notes.push('no log_mstar_alt: the mass at z_alt was rescaled by the luminosity-distance ratio, D_L(z_alt)²/D_L(z)² · (1+z)/(1+z_alt)');
   }
-  const logCeil = new Float64Array(valid.length);
-  const logCeilCv = new Float64Array(valid.length);
-  valid.forEach((k, i) => {
-    logCeil[i] = Math.log10(fb * ceil.haloMassAtQuantile(d.z[k]));
+  const nv = valid.length;
+  const logCeil = new Float64Array(nv);
+  const logCeilCv = new Float64Array(nv);
+  const lfb = Math.log10(fb);
+  for (let i = 0; i < nv; i++) {
+    const zk = d.z[valid[i]];
+    logCeil[i] = lfb + ceil.log10HaloMassAtQuantile(zk);
     // σ_dm is evaluated once, at the galaxy's nominal z (it changes slowly with z across the slice).
-    logCeilCv[i] = Math.log10(fb * ceil.haloMassAtQuantileCv(d.z[k], sigmaDm));
-  });
+    logCeilCv[i] = lfb + ceil.log10HaloMassAtQuantileCv(zk, sigmaDm);
+  }
   const headline = g.imfRef && choices.imfs.includes(g.imfRef) ? g.imfRef : choices.imfs[0];
   const imfs = g.imfRef && !choices.imfs.includes(g.imfRef) ? [g.imfRef, ...choices.imfs] : [...choices.imfs];
   const hMed = halo.growth.d(g.z);
@@ -106,21 +120,33 @@ export function auditGalaxy(ctx: AuditContext, g: GalaxyInput, index: number): G
   const sl = halo.slice(g.z);
   const tableOf = (imf: string): MassToLightTable => ctx.cache.table(imf, g.z, ctx.sfh);
   const refTable = g.imfRef ? tableOf(g.imfRef) : undefined;
+  const posn = drawPositions(g, d, tableOf(imfs[0]), valid);
+  const refAt = new Float64Array(nv);
+  if (refTable) for (let i = 0; i < nv; i++) refAt[i] = refTable.logMassToLightAt(posn.x[i], posn.y[i]);
+  const base = new Float64Array(nv);
+  for (let i = 0; i < nv; i++) base[i] = g.log10Mstar !== undefined ? d.log10MassRef[valid[i]] - refAt[i] : d.log10Lnu[valid[i]];
   for (const imf of imfs) {
     const tab = tableOf(imf);
-    const lm = new Float64Array(valid.length);
-    const eps = new Float64Array(valid.length);
-    const epsCv = new Float64Array(valid.length);
-    valid.forEach((k, i) => {
-      lm[i] = log10MassForImf(g, d, tab, refTable, k);
-      eps[i] = 10 ** (lm[i] - logCeil[i]);
-      epsCv[i] = 10 ** (lm[i] - logCeilCv[i]);
-    });
-    const lmS = Float64Array.from(lm).sort();
-    const epsS = Float64Array.from(eps).sort();
-    const med = quantileSorted(epsS, 0.5);
-    const medCv = sortedMedian(epsCv);
-    const lmMed = quantileSorted(lmS, 0.5);
+    // Everything in log10: quantiles commute with the monotonic map, so no power of ten per draw.
+    const lm = new Float64Array(nv);
+    const leps = new Float64Array(nv);
+    const lepsCv = new Float64Array(nv);
+    let over = 0;
+    let strained = 0;
+    const lRef = Math.log10(choices.epsRef);
+    for (let i = 0; i < nv; i++) {
+      const v = base[i] + tab.logMassToLightAt(posn.x[i], posn.y[i]);
+      lm[i] = v;
+      const e = v - logCeil[i];
+      leps[i] = e;
+      lepsCv[i] = v - logCeilCv[i];
+      if (e > 0) over++;
+      if (e > lRef) strained++;
+    }
+    const [lm16, lmMed, lm84] = quantilesBySelection(lm.slice(), [0.16, 0.5, 0.84]);
+    const [le05, leMed, le95] = quantilesBySelection(leps, [0.05, 0.5, 0.95]);
+    const med = 10 ** leMed;
+    const medCv = 10 ** quantilesBySelection(lepsCv, [0.5])[0];
     // Eddington bias: with dn/dlog M ∝ M^−α near the host mass and Gaussian log-mass errors σ, the
     // true mass is lower on average by α σ² ln10 dex (Eddington 1913, MNRAS 73, 359; the posterior mean
     // of a Gaussian error on a power-law prior). Host mass: M⋆/(f_b ε) with ε = median ε_req in [ε_ref, 1].
@@ -141,13 +167,13 @@ export function auditGalaxy(ctx: AuditContext, g: GalaxyInput, index: number): G
     imfResults[imf] = {
       verdict: verdictFor(med, choices.epsRef),
       log_mstar_median: lmMed,
-      log_mstar_p16: quantileSorted(lmS, 0.16),
-      log_mstar_p84: quantileSorted(lmS, 0.84),
+      log_mstar_p16: lm16,
+      log_mstar_p84: lm84,
       eps_required_median: med,
-      eps_required_p05: quantileSorted(epsS, 0.05),
-      eps_required_p95: quantileSorted(epsS, 0.95),
-      p_over_budget: fractionAbove(eps, 1),
-      p_strained: fractionAbove(eps, choices.epsRef),
+      eps_required_p05: 10 ** le05,
+      eps_required_p95: 10 ** le95,
+      p_over_budget: over / nv,
+      p_strained: strained / nv,
       eps_required_median_debiased: med * 10 ** -shift,
       eps_required_median_cv: medCv,
       verdict_cv: verdictFor(medCv, choices.epsRef),
@@ -162,7 +188,7 @@ export function auditGalaxy(ctx: AuditContext, g: GalaxyInput, index: number): G
   for (const [zf, kind, isAlt] of fixedChecks) {
     const df = drawGalaxy(g, Math.min(n, 4000), seed, halo.background, { z: zf, alt: isAlt });
     const eps: number[] = [];
-    const lc = Math.log10(fb * ceil.haloMassAtQuantile(zf));
+    const lc = lfb + ceil.log10HaloMassAtQuantile(zf);
     for (let k = 0; k < df.n; k++) {
       if (g.log10Mstar === undefined && !Number.isFinite(df.log10Lnu[k])) continue;
       eps.push(10 ** (log10MassForImf(g, df, headTable, refTable, k) - lc));

@@ -19,6 +19,10 @@ export interface MassToLightTable {
   readonly logSurv: Float64Array;
   /** log10(surviving Msun per erg s⁻¹ Hz⁻¹) at (age Myr, λ μm). */
   logMassToLight(ageMyr: number, lambdaUm: number): number;
+  /** Fractional grid position (x = age index, y = λ index) shared by every table on the same grid. */
+  gridPosition(ageMyr: number, lambdaUm: number): [number, number];
+  /** logMassToLight at a grid position from gridPosition (the same number, fewer logarithms). */
+  logMassToLightAt(x: number, y: number): number;
 }
 
 export const ML_AGE_MIN_MYR = 1;
@@ -67,11 +71,17 @@ export function makeMassToLightTable(pop: Population, sfh: Sfh, nAge = 100, nLam
     log10LamMax: ll1,
     logLnu,
     logSurv,
-    logMassToLight: (ageMyr, lambdaUm) => {
-      let x = (Math.log10(ageMyr) - la0) * fa;
-      let y = (Math.log10(lambdaUm) - ll0) * fl;
-      x = Math.min(Math.max(x, 0), nAge - 1);
-      y = Math.min(Math.max(y, 0), nLam - 1);
+    logMassToLight: (ageMyr, lambdaUm) => at(...pos(ageMyr, lambdaUm)),
+    gridPosition: (ageMyr, lambdaUm) => pos(ageMyr, lambdaUm),
+    logMassToLightAt: (x, y) => at(x, y),
+  };
+  function pos(ageMyr: number, lambdaUm: number): [number, number] {
+    const x = (Math.log10(ageMyr) - la0) * fa;
+    const y = (Math.log10(lambdaUm) - ll0) * fl;
+    return [Math.min(Math.max(x, 0), nAge - 1), Math.min(Math.max(y, 0), nLam - 1)];
+  }
+  function at(x: number, y: number): number {
+    {
       const i = Math.min(Math.floor(x), nAge - 2);
       const j = Math.min(Math.floor(y), nLam - 2);
       const tx = x - i;
@@ -83,6 +93,6 @@ export function makeMassToLightTable(pop: Population, sfh: Sfh, nAge = 100, nLam
       const lnu = (1 - tx) * ((1 - ty) * l00 + ty * l01) + tx * ((1 - ty) * l10 + ty * l11);
       const surv = (1 - tx) * logSurv[i] + tx * logSurv[i + 1];
       return surv - lnu;
-    },
-  };
+    }
+  }
 }

@@ -1,0 +1,51 @@
+/**
+ * k-th smallest element of an array in expected linear time (Hoare's quickselect, median-of-three
+ * pivots); reorders the array in place. Used for Monte Carlo quantiles, where a full sort is wasted.
+ */
+export function selectKth(a: Float64Array, k: number): number {
+  let lo = 0;
+  let hi = a.length - 1;
+  while (hi > lo) {
+    const mid = (lo + hi) >> 1;
+    // median of three as the pivot
+    let x = a[lo];
+    let y = a[mid];
+    let z = a[hi];
+    if (x > y) [x, y] = [y, x];
+    if (y > z) [y, z] = [z, y];
+    if (x > y) [x, y] = [y, x];
+    const pivot = y;
+    let i = lo;
+    let j = hi;
+    while (i <= j) {
+      while (a[i] < pivot) i++;
+      while (a[j] > pivot) j--;
+      if (i <= j) {
+        const t = a[i];
+        a[i] = a[j];
+        a[j] = t;
+        i++;
+        j--;
+      }
+    }
+    if (k <= j) hi = j;
+    else if (k >= i) lo = i;
+    else return a[k];
+  }
+  return a[k];
+}
+
+/** Type-7 quantiles (Hyndman & Fan 1996), the same values as quantileSorted on the sorted array. */
+export function quantilesBySelection(a: Float64Array, qs: readonly number[]): number[] {
+  const n = a.length;
+  return qs.map((q) => {
+    const h = (n - 1) * q;
+    const lo = Math.floor(h);
+    const v0 = selectKth(a, lo);
+    if (lo + 1 >= n || h === lo) return v0;
+    // the (lo+1)-th order statistic is the minimum of the upper part after selection
+    let v1 = Infinity;
+    for (let i = lo + 1; i < n; i++) if (a[i] < v1) v1 = a[i];
+    return v0 + (h - lo) * (v1 - v0);
+  });
+}
