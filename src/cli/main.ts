@@ -6,6 +6,7 @@ import { runRarest } from './commands/rarest.js';
 import { runStars } from './commands/stars.js';
 import { runMass } from './commands/mass.js';
 import { runAssess } from './commands/assess.js';
+import './parallel-audit.js';
 
 const COMMANDS: Record<string, (argv: string[]) => string | Promise<string>> = {
   cosmo: runCosmo,

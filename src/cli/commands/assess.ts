@@ -14,6 +14,7 @@ import { COSMOLOGY_HELP, COSMOLOGY_OPTIONS, cosmologyFrom, format, num, parse } 
 import { CliError } from '../cli-error.js';
 import { HALO_HELP, HALO_OPTIONS, haloChoices } from '../halo-options.js';
 import { toJson } from '../output.js';
+import { defaultJobs, runAuditParallel } from '../parallel-audit.js';
 import { imfList, sfhFrom, STAR_HELP, STAR_OPTIONS } from '../star-options.js';
 
 export const ASSESS_HELP = `Usage: assess SAMPLE.csv --area-arcmin2 40 --z-range 7:11 [--imf ...] [--eps-ref 0.3] [--quantile 0.997]
@@ -37,6 +38,7 @@ Survey and choices:
   --slice-dz D         width of each galaxy's redshift slice (default 1)
   --formation-z Z      formation redshift for the time budget (default 30)
   --z-bins A:B,C:D     redshift bins for the sample densities (default: the survey range)
+  --jobs N             worker threads for large samples (default: cores, for ≥ 24 rows; same numbers as 1)
 
 ${STAR_HELP}
 
@@ -61,7 +63,7 @@ function range(flag: string, raw: string): [number, number] {
   return [a, b];
 }
 
-export function runAssess(argv: string[]): string {
+export async function runAssess(argv: string[]): Promise<string> {
   const { values, positionals } = parse(
     argv,
     {
@@ -78,6 +80,7 @@ export function runAssess(argv: string[]): string {
       'slice-dz': { type: 'string' },
       'formation-z': { type: 'string' },
       'z-bins': { type: 'string' },
+      jobs: { type: 'string' },
       ...STAR_OPTIONS,
       ...HALO_OPTIONS,
       ...COSMOLOGY_OPTIONS,
@@ -142,7 +145,10 @@ export function runAssess(argv: string[]): string {
       zBins: typeof values['z-bins'] === 'string' ? String(values['z-bins']).split(',').map((b) => range('z-bins', b)) : [],
     };
   }
-  const result = runAudit(csv, choices);
+  const rowsGuess = csv.split('\n').length - 1;
+  const jobs = values.jobs === undefined ? defaultJobs(rowsGuess) : num('jobs', values.jobs, { min: 1, max: 64 });
+  if (!Number.isInteger(jobs)) throw new CliError(`--jobs must be a whole number (got ${values.jobs})`);
+  const result = jobs > 1 ? await runAuditParallel(csv, choices, jobs, new URL(import.meta.url)) : runAudit(csv, choices);
   if (fmt === 'csv') return auditCsv(result);
   if (fmt === 'md') return auditMarkdown(result);
   return toJson(result);

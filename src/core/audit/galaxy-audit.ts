@@ -71,13 +71,15 @@ function log10MassForImf(g: GalaxyInput, d: GalaxyDraws, table: MassToLightTable
   return d.log10Lnu[k] + table.logMassToLight(d.ageMyr[k], d.lambdaRestUm[k]);
 }
 
+const LOG_RESCALE = Math.log10(RESCALE_REST_UM);
+
 /** Grid positions of every valid draw in the (shared) M/L table grid, computed once for all IMFs. */
 function drawPositions(g: GalaxyInput, d: GalaxyDraws, table: MassToLightTable, valid: readonly number[]): { x: Float64Array; y: Float64Array } {
   const x = new Float64Array(valid.length);
   const y = new Float64Array(valid.length);
   for (let i = 0; i < valid.length; i++) {
     const k = valid[i];
-    const [a, b] = table.gridPosition(d.ageMyr[k], g.log10Mstar !== undefined ? RESCALE_REST_UM : d.lambdaRestUm[k]);
+    const [a, b] = table.gridPositionLog(d.log10AgeMyr[k], g.log10Mstar !== undefined ? LOG_RESCALE : d.log10LambdaRestUm[k]);
     x[i] = a;
     y[i] = b;
   }

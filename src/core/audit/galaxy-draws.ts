@@ -1,9 +1,9 @@
 import type { Background } from '../cosmology/background.js';
-import { LYMAN_ALPHA_UM } from '../constants.js';
-import { attenuationMag, type DustSpec } from '../stars/dust.js';
+import { AB_ZERO_POINT, LYMAN_ALPHA_UM, MPC_CM } from '../constants.js';
+import { calzettiK, meurerA1600 } from '../stars/dust.js';
 import { ML_AGE_MIN_MYR } from '../stars/mass-to-light.js';
 import { MUV_REST_UM } from '../stars/mass-estimate.js';
-import { apparentFromAbsolute, lnuFromApparent, MODEL_LAMBDA_MAX_UM } from '../stars/photometry.js';
+import { apparentFromAbsolute, MODEL_LAMBDA_MAX_UM } from '../stars/photometry.js';
 import { cubicSpline, splineEval, type CubicSpline } from '../numeric/cubic-spline.js';
 import { makeRandom } from './random.js';
 
@@ -54,6 +54,9 @@ export interface GalaxyDraws {
   readonly n: number;
   readonly z: Float64Array;
   readonly ageMyr: Float64Array;
+  /** log10 of ageMyr and of lambdaRestUm (NaN where excluded), for table lookups without logarithms. */
+  readonly log10AgeMyr: Float64Array;
+  readonly log10LambdaRestUm: Float64Array;
   readonly alt: Uint8Array;
   /** For brightness rows: log10 of the dust-corrected L_ν and the rest wavelength; NaN = excluded draw. */
   readonly log10Lnu: Float64Array;
@@ -73,12 +76,17 @@ export function drawGalaxy(g: GalaxyInput, n: number, seed: number, bgFull: Back
   const lL = new Float64Array(n);
   const lam = new Float64Array(n);
   const lM = new Float64Array(n);
+  const lAge = new Float64Array(n);
+  const lLam = new Float64Array(n);
+  const k016 = calzettiK(0.16);
+  const FOUR_PI_MPC2 = Math.log10(4 * Math.PI * MPC_CM * MPC_CM);
   const sLo = g.zLo !== undefined ? g.z - g.zLo : 0;
   const sHi = g.zHi !== undefined ? g.zHi - g.z : 0;
   const fracWidth = (0.5 * (sLo + sHi)) / (1 + g.z);
   const lambdaObs = g.mAB !== undefined ? g.lambdaObsUm! : MUV_REST_UM * (1 + g.z);
   const mApp = g.mAB ?? (g.muv !== undefined ? apparentFromAbsolute(g.muv, bg.luminosityDistanceMpc(g.z), g.z) : Number.NaN);
   const dl0 = bg.luminosityDistanceMpc(g.z);
+  const lObs = Math.log10(lambdaObs);
   let excluded = 0;
   const l0 = Math.log10(ML_AGE_MIN_MYR);
   for (let k = 0; k < n; k++) {
@@ -103,7 +111,9 @@ export function drawGalaxy(g: GalaxyInput, n: number, seed: number, bgFull: Back
     z[k] = zk;
     alt[k] = isAlt ? 1 : 0;
     const tMax = bg.ageGyr(zk) * 1e3;
-    age[k] = 10 ** (l0 + uAge * (Math.log10(tMax) - l0));
+    const la = l0 + uAge * (Math.log10(tMax) - l0);
+    lAge[k] = la;
+    age[k] = 10 ** la;
     if (g.log10Mstar !== undefined) {
       let m = g.log10Mstar + gMass * g.log10MstarErr;
       if (isAlt && g.log10MstarAlt !== undefined) m = g.log10MstarAlt + gMass * g.log10MstarErr;
@@ -111,20 +121,26 @@ export function drawGalaxy(g: GalaxyInput, n: number, seed: number, bgFull: Back
       lM[k] = m;
       lL[k] = Number.NaN;
       lam[k] = Number.NaN;
+      lLam[k] = Number.NaN;
     } else {
       const rest = lambdaObs / (1 + zk);
       lM[k] = Number.NaN;
       if (rest < LYMAN_ALPHA_UM || rest > MODEL_LAMBDA_MAX_UM) {
         lL[k] = Number.NaN;
         lam[k] = Number.NaN;
+        lLam[k] = Number.NaN;
         excluded++;
         continue;
       }
       const m = mApp + gMag * g.magErr;
-      const dust: DustSpec = g.beta !== undefined ? { kind: 'beta', beta: g.beta + gBeta * g.betaErr } : { kind: 'none' };
-      lL[k] = Math.log10(lnuFromApparent(m, bg.luminosityDistanceMpc(zk), zk)) + 0.4 * attenuationMag(dust, rest);
+      // log10 L_ν = log10(4π D_L²) − 0.4 (m + 48.60) − log10(1+z)  (photometry.ts, in logarithms)
+      const dl = bg.luminosityDistanceMpc(zk);
+      let l = FOUR_PI_MPC2 + 2 * Math.log10(dl) - 0.4 * (m + AB_ZERO_POINT) - Math.log10(1 + zk);
+      if (g.beta !== undefined) l += (0.4 * meurerA1600(g.beta + gBeta * g.betaErr) * calzettiK(rest)) / k016;
+      lL[k] = l;
       lam[k] = rest;
+      lLam[k] = lObs - Math.log10(1 + zk);
     }
   }
-  return { n, z, ageMyr: age, alt, log10Lnu: lL, lambdaRestUm: lam, log10MassRef: lM, excluded };
+  return { n, z, ageMyr: age, log10AgeMyr: lAge, log10LambdaRestUm: lLam, alt, log10Lnu: lL, lambdaRestUm: lam, log10MassRef: lM, excluded };
 }

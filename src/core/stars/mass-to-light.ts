@@ -21,6 +21,8 @@ export interface MassToLightTable {
   logMassToLight(ageMyr: number, lambdaUm: number): number;
   /** Fractional grid position (x = age index, y = λ index) shared by every table on the same grid. */
   gridPosition(ageMyr: number, lambdaUm: number): [number, number];
+  /** gridPosition from log10 age (Myr) and log10 λ (μm). */
+  gridPositionLog(log10AgeMyr: number, log10LambdaUm: number): [number, number];
   /** logMassToLight at a grid position from gridPosition (the same number, fewer logarithms). */
   logMassToLightAt(x: number, y: number): number;
 }
@@ -73,11 +75,15 @@ export function makeMassToLightTable(pop: Population, sfh: Sfh, nAge = 100, nLam
     logSurv,
     logMassToLight: (ageMyr, lambdaUm) => at(...pos(ageMyr, lambdaUm)),
     gridPosition: (ageMyr, lambdaUm) => pos(ageMyr, lambdaUm),
+    gridPositionLog: (la, ll) => posLog(la, ll),
     logMassToLightAt: (x, y) => at(x, y),
   };
   function pos(ageMyr: number, lambdaUm: number): [number, number] {
-    const x = (Math.log10(ageMyr) - la0) * fa;
-    const y = (Math.log10(lambdaUm) - ll0) * fl;
+    return posLog(Math.log10(ageMyr), Math.log10(lambdaUm));
+  }
+  function posLog(la: number, ll: number): [number, number] {
+    const x = (la - la0) * fa;
+    const y = (ll - ll0) * fl;
     return [Math.min(Math.max(x, 0), nAge - 1), Math.min(Math.max(y, 0), nLam - 1)];
   }
   function at(x: number, y: number): number {

@@ -1,0 +1,54 @@
+import { availableParallelism } from 'node:os';
+import { Worker, isMainThread, parentPort, workerData } from 'node:worker_threads';
+import { auditRow, finishAudit, prepareAudit, type AuditChoices, type AuditResult, type GalaxyRow } from '../core/audit/index.js';
+
+/**
+ * The audit on several cores: rows are dealt round-robin to worker threads (each builds its own
+ * halo model and tables), the main thread builds its own meanwhile and finishes the sample level.
+ * Every row draws from its own seeded stream (seed, row), so the result is identical to a serial run.
+ */
+interface Job {
+  readonly kind: 'baryon-audit-rows';
+  readonly csv: string;
+  readonly choices: AuditChoices;
+  readonly indices: number[];
+}
+
+if (!isMainThread && (workerData as Job | undefined)?.kind === 'baryon-audit-rows') {
+  const job = workerData as Job;
+  try {
+    const prep = prepareAudit(job.csv, job.choices);
+    parentPort!.postMessage({ ok: true, rows: job.indices.map((i) => [i, auditRow(prep, i)] as const) });
+  } catch (e) {
+    parentPort!.postMessage({ ok: false, message: (e as Error).message });
+  }
+}
+
+export function defaultJobs(rows: number): number {
+  return rows < 24 ? 1 : Math.max(1, Math.min(availableParallelism(), Math.ceil(rows / 12)));
+}
+
+export async function runAuditParallel(csv: string, choices: AuditChoices, jobs: number, entry: URL): Promise<AuditResult> {
+  const prepMain = prepareAudit(csv, choices);
+  const n = prepMain.parsed.rows.length;
+  if (jobs <= 1 || n < 2) return finishAudit(prepMain, prepMain.parsed.rows.map((_, i) => auditRow(prepMain, i)));
+  const parts: number[][] = Array.from({ length: jobs }, () => []);
+  for (let i = 0; i < n; i++) parts[i % jobs].push(i);
+  const results = await Promise.all(
+    parts.map(
+      (indices) =>
+        new Promise<[number, GalaxyRow][]>((resolve, reject) => {
+          const w = new Worker(entry, { workerData: { kind: 'baryon-audit-rows', csv, choices, indices } satisfies Job });
+          w.once('message', (m: { ok: boolean; rows?: [number, GalaxyRow][]; message?: string }) => {
+            void w.terminate();
+            if (m.ok) resolve(m.rows!);
+            else reject(new RangeError(m.message));
+          });
+          w.once('error', reject);
+        }),
+    ),
+  );
+  const galaxies: GalaxyRow[] = new Array(n);
+  for (const part of results) for (const [i, row] of part) galaxies[i] = row;
+  return finishAudit(prepMain, galaxies);
+}
