@@ -37,8 +37,12 @@ export function parse(argv: string[], options: OptionSpec, allowPositionals = fa
     const r = parseArgs({ args: joinNegatives(argv, all), options: all, strict: true, allowPositionals });
     return { values: r.values as Parsed['values'], positionals: r.positionals };
   } catch (e) {
-    const msg = (e as Error).message.replace(/\. To specify a positional argument.*$/s, '');
-    throw new CliError(msg);
+    // node:util's messages run over several lines; keep one line that names the flag.
+    const raw = (e as Error).message;
+    const flag = /'(--?[\w-]+)'/.exec(raw)?.[1];
+    if (/ambiguous/.test(raw) && flag) throw new CliError(`${flag}: its value starts with "-"; write ${flag}=VALUE`);
+    if (/argument missing/.test(raw) && flag) throw new CliError(`${flag} needs a value`);
+    throw new CliError(raw.split('\n')[0].replace(/\. To specify a positional argument.*$/, ''));
   }
 }
 

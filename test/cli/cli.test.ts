@@ -69,6 +69,20 @@ describe('CLI contract', () => {
     const again = JSON.parse((await run(['assess', '--record', rec])).out);
     expect(JSON.stringify(again.galaxies)).toBe(JSON.stringify(j.galaxies));
   });
+  it('assess --jobs 2 (worker threads) gives exactly the serial numbers', async () => {
+    const f = join(tmp, 'many.csv');
+    const lines = ['id,z,z_lo,z_hi,muv,mag_err'];
+    for (let i = 0; i < 30; i++) lines.push(`P-${i},${(7.5 + i * 0.1).toFixed(2)},${(7.3 + i * 0.1).toFixed(2)},${(7.7 + i * 0.1).toFixed(2)},-20.5,0.1`);
+    writeFileSync(f, lines.join('\n'));
+    const base = [f, '--area-arcmin2', '40', '--z-range', '7:11', '--draws', '300', '--imf', 'salpeter,top-heavy-flat'];
+    const serial = await run(['assess', ...base, '--jobs', '1']);
+    expect(serial.code).toBe(0);
+    // worker threads need the bundled CLI: run it through the launcher as a user would
+    const { spawnSync } = await import('node:child_process');
+    const par = spawnSync(process.execPath, ['src/cli/launch.mjs', 'assess', ...base, '--jobs', '2'], { encoding: 'utf8' });
+    expect(par.status).toBe(0);
+    expect(JSON.parse(par.stdout).galaxies).toEqual(JSON.parse(serial.out).galaxies);
+  }, 120000);
   it('every subcommand answers --help', async () => {
     for (const c of ['cosmo', 'halos', 'rarest', 'stars', 'mass', 'assess']) {
       const r = await run([c, '--help']);

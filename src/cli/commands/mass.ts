@@ -49,6 +49,8 @@ export function runMass(argv: string[]): string {
     brightness = { kind: 'luminosity', lnuErgSHz: num('lnu', values.lnu, { gt: 0 }), lambdaRestUm: num('lambda-rest-um', values['lambda-rest-um'], { min: 0.1216, max: 1 }) };
   }
   if (values.beta !== undefined && values.av !== undefined) throw new CliError('give --beta or --av, not both');
+  if (values['lambda-obs-um'] !== undefined && brightness.kind !== 'apparent') throw new CliError('--lambda-obs-um goes with --m-ab only');
+  if (values['lambda-rest-um'] !== undefined && brightness.kind !== 'luminosity') throw new CliError('--lambda-rest-um goes with --lnu only');
   const dust: DustSpec = values.beta !== undefined ? { kind: 'beta', beta: num('beta', values.beta, { min: -4, max: 4 }) } : values.av !== undefined ? { kind: 'av', av: num('av', values.av, { min: 0, max: 10 }) } : { kind: 'none' };
   const names = imfList(values, ['salpeter', 'kroupa', 'chabrier', 'top-heavy-flat', 'top-heavy-cmb']);
   const sfh = sfhFrom(values);
@@ -61,7 +63,11 @@ export function runMass(argv: string[]): string {
   });
   if (fmt === 'csv') return toCsv(rows);
   const inputs: Record<string, unknown> = { z, sfh: typeof values.sfh === 'string' ? values.sfh : 'constant' };
-  for (const k of ['m-ab', 'lambda-obs-um', 'muv', 'lnu', 'lambda-rest-um', 'beta', 'av']) if (values[k] !== undefined) inputs[k.replace(/-/g, '_')] = Number(values[k]);
+  if (brightness.kind === 'apparent') Object.assign(inputs, { m_ab: brightness.mAB, lambda_obs_um: brightness.lambdaObsUm });
+  else if (brightness.kind === 'absolute-uv') inputs.muv = brightness.muv;
+  else Object.assign(inputs, { lnu: brightness.lnuErgSHz, lambda_rest_um: brightness.lambdaRestUm });
+  if (dust.kind === 'beta') inputs.beta = dust.beta;
+  if (dust.kind === 'av') inputs.av = dust.av;
   return toJson({
     inputs,
     cosmology: describeCosmology(p),

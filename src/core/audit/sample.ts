@@ -69,6 +69,7 @@ export function parseNumberCell(text: string): { value?: number; reason?: string
   const s = text.trim();
   if (s === '') return {};
   if (!NUMBER_RE.test(s)) {
+    if (/^[+-]?\d{1,3}(,\d{3})+$/.test(s)) return { reason: `"${text}" has a comma: write ${s.replace(/,/g, '')} if it is a thousands separator, or ${s.replace(',', '.')} if it is a decimal comma` };
     if (/^[+-]?\d+,\d+$/.test(s)) return { reason: `"${text}" uses a comma as decimal mark; write ${s.replace(',', '.')}` };
     if (/^[+-]?\d{1,3}(,\d{3})+(\.\d+)?$/.test(s)) return { reason: `"${text}" has thousands separators; write ${s.replace(/,/g, '')}` };
     return { reason: `"${text}" is not a number` };
