@@ -209,7 +209,11 @@ export class BaryonAuditApp extends LitElement {
                 ? html`<span>Audited ${result!.sample.accepted} galaxies (${result!.sample.rejected} rejected) in ${(resp.elapsedMs / 1000).toFixed(2)} s.</span>`
                 : nothing}
           </div>
-          ${this.ctl.status === 'error' && this.ctl.message ? html`<p class="error" role="alert">${this.ctl.message}</p>` : nothing}
+          ${this.ctl.message && this.ctl.status !== 'error' && !/restarted/.test(this.ctl.message) ? html`<p class="notice" role="status">${this.ctl.message}</p>` : nothing}
+          ${this.ctl.message && (this.ctl.status === 'error' || /restarted/.test(this.ctl.message))
+            ? html`<p class="error" role="alert">${this.ctl.message} Your sample and choices are kept as you left them.
+                <button type="button" @click=${() => this.schedule(0)}>Run again with the current inputs</button></p>`
+            : nothing}
           <h2>Per galaxy</h2>
           <results-table .result=${result} .selected=${this.selected} @galaxy-select=${(e: CustomEvent<{ id: string }>) => (this.selected = e.detail.id)}></results-table>
           <h2>Figures</h2>
