@@ -52,6 +52,16 @@ export interface ExplorerResponse {
 }
 
 let current = 0;
+
+function respond(req: AuditRequest, prep: ReturnType<typeof prepareAudit>, galaxies: GalaxyRow[], elapsedMs: number): AuditResponse {
+  const result = finishAudit(prep, galaxies);
+  const s = req.choices.survey;
+  const curves = ceilingCurves(prep.ctx.halo, prep.ctx.ceilingFor(undefined), req.choices.epsRef, Math.max(0.5, s.zMin - 1), s.zMax + 1);
+  const imfs = [...new Set(result.galaxies.flatMap((g) => (g.imf ? Object.keys(g.imf) : [])))];
+  const points = galaxyPoints(result, imfs);
+  const resp: AuditResponse = { id: req.id, status: 'done', result, curves, points, markdown: auditMarkdown(result), csv: auditCsv(result), elapsedMs };
+  return Comlink.transfer(resp, [...buffers(curves as unknown as Record<string, unknown>), ...points.flatMap((p) => buffers(p as unknown as Record<string, unknown>))]);
+}
 const tick = (): Promise<void> => new Promise((r) => setTimeout(r, 0));
 
 function buffers(x: { [k: string]: unknown } | undefined): ArrayBuffer[] {
@@ -73,13 +83,28 @@ export const auditApi = {
       if (i % 2 === 1) await tick();
     }
     if (current !== req.id) return { id: req.id, status: 'cancelled', elapsedMs: performance.now() - t0 };
-    const result = finishAudit(prep, galaxies);
-    const s = req.choices.survey;
-    const curves = ceilingCurves(prep.ctx.halo, prep.ctx.ceilingFor(undefined), req.choices.epsRef, Math.max(0.5, s.zMin - 1), s.zMax + 1);
-    const imfs = [...new Set(result.galaxies.flatMap((g) => (g.imf ? Object.keys(g.imf) : [])))];
-    const points = galaxyPoints(result, imfs);
-    const resp: AuditResponse = { id: req.id, status: 'done', result, curves, points, markdown: auditMarkdown(result), csv: auditCsv(result), elapsedMs: performance.now() - t0 };
-    return Comlink.transfer(resp, [...buffers(curves as unknown as Record<string, unknown>), ...points.flatMap((p) => buffers(p as unknown as Record<string, unknown>))]);
+    return respond(req, prep, galaxies, performance.now() - t0);
+  },
+  /** Number of data rows the sample parses to (for dealing rows over the pool). */
+  rowCount(csv: string, choices: AuditChoices): number {
+    return prepareAudit(csv, choices).parsed.rows.length;
+  },
+  /** Pool member: audits only the rows at `indices` (each row has its own seeded stream). */
+  async runRows(req: AuditRequest, indices: number[], onProgress?: (done: number) => void): Promise<[number, GalaxyRow][] | 'cancelled'> {
+    current = req.id;
+    const prep = prepareAudit(req.csv, req.choices);
+    const out: [number, GalaxyRow][] = [];
+    for (let j = 0; j < indices.length; j++) {
+      if (current !== req.id) return 'cancelled';
+      out.push([indices[j], auditRow(prep, indices[j])]);
+      if (onProgress) await onProgress(j + 1);
+      if (j % 2 === 1) await tick();
+    }
+    return current === req.id ? out : 'cancelled';
+  },
+  /** Pool leader: the sample level, figures and reports from every row's result. */
+  finish(req: AuditRequest, galaxies: GalaxyRow[], elapsedMs: number): AuditResponse {
+    return respond(req, prepareAudit(req.csv, req.choices), galaxies, elapsedMs);
   },
   cancel(): void {
     current = -1;

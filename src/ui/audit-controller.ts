@@ -23,10 +23,33 @@ export class AuditController {
   private seq = 0;
   private lastGood?: { csv: string; choices: AuditChoices };
   private pending?: { csv: string; choices: AuditChoices };
+  private helpers: { worker: Worker; api: Comlink.Remote<AuditApi> }[] = [];
   state: ControllerState = { status: 'idle', done: 0, total: 0, restarts: 0 };
 
-  constructor(private readonly onChange: (s: ControllerState) => void, private readonly makeWorker: () => Worker = () => new Worker(new URL('./audit.worker.js', import.meta.url), { type: 'module' })) {
+  /**
+   * @param poolSize workers used for samples of at least POOL_MIN_ROWS rows (default: the machine's
+   *   cores, at most 4); smaller samples use the one main worker.
+   */
+  constructor(
+    private readonly onChange: (s: ControllerState) => void,
+    private readonly makeWorker: () => Worker = () => new Worker(new URL('./audit.worker.js', import.meta.url), { type: 'module' }),
+    private readonly poolSize = Math.max(1, Math.min(4, globalThis.navigator?.hardwareConcurrency ?? 1)),
+  ) {
     this.start();
+  }
+
+  static readonly POOL_MIN_ROWS = 24;
+
+  private helper(i: number): Comlink.Remote<AuditApi> {
+    while (this.helpers.length <= i) {
+      const worker = this.makeWorker();
+      worker.addEventListener('error', (e) => {
+        e.preventDefault();
+        this.crashed(`a pool worker failed (${e.message || 'script error'})`);
+      });
+      this.helpers.push({ worker, api: Comlink.wrap<AuditApi>(worker) });
+    }
+    return this.helpers[i].api;
   }
 
   private set(s: Partial<ControllerState>): void {
@@ -46,6 +69,8 @@ export class AuditController {
 
   private crashed(why: string): void {
     this.worker.terminate();
+    for (const h of this.helpers) h.worker.terminate();
+    this.helpers = [];
     this.seq++;
     this.start();
     const redo = this.lastGood;
@@ -57,9 +82,20 @@ export class AuditController {
   async run(csv: string, choices: AuditChoices, keepMessage = false): Promise<void> {
     const id = ++this.seq;
     this.pending = { csv, choices };
-    if (this.state.status === 'running') void this.api.cancel();
+    if (this.state.status === 'running') {
+      void this.api.cancel();
+      for (const h of this.helpers) void h.api.cancel();
+    }
     this.set({ status: 'running', done: 0, total: 0, ...(keepMessage ? {} : { message: undefined }) });
     try {
+      if (this.poolSize > 1 && csv.trim().split('\n').length - 1 >= AuditController.POOL_MIN_ROWS) {
+        const rows = await this.api.rowCount(csv, choices);
+        if (id !== this.seq) return;
+        if (rows >= AuditController.POOL_MIN_ROWS) {
+          await this.runPool(id, csv, choices, rows);
+          return;
+        }
+      }
       const resp = await this.api.run(
         { id, csv, choices },
         Comlink.proxy((done: number, total: number) => {
@@ -75,10 +111,41 @@ export class AuditController {
     }
   }
 
+  /** Large samples: rows dealt round-robin over the pool (same numbers: every row has its own stream). */
+  private async runPool(id: number, csv: string, choices: AuditChoices, rows: number): Promise<void> {
+    const t0 = performance.now();
+    const k = Math.min(this.poolSize, rows);
+    const parts: number[][] = Array.from({ length: k }, () => []);
+    for (let i = 0; i < rows; i++) parts[i % k].push(i);
+    const done = new Array(k).fill(0);
+    const apis = [this.api, ...Array.from({ length: k - 1 }, (_, i) => this.helper(i))];
+    const req = { id, csv, choices };
+    const results = await Promise.all(
+      apis.map((api, w) =>
+        api.runRows(
+          req,
+          parts[w],
+          Comlink.proxy((d: number) => {
+            done[w] = d;
+            if (id === this.seq) this.set({ done: done.reduce((a, b) => a + b, 0), total: rows });
+          }),
+        ),
+      ),
+    );
+    if (id !== this.seq || results.some((r) => r === 'cancelled')) return;
+    const galaxies = new Array(rows);
+    for (const part of results) for (const [i, g] of part as [number, unknown][]) galaxies[i] = g;
+    const resp = await this.api.finish(req, galaxies, performance.now() - t0);
+    if (id !== this.seq) return;
+    this.lastGood = { csv, choices };
+    this.set({ status: 'done', response: resp });
+  }
+
   /** Stops the run in flight; the last result stays on the page. */
   cancel(): void {
     this.seq++;
     void this.api.cancel();
+    for (const h of this.helpers) void h.api.cancel();
     this.set({ status: this.state.response ? 'done' : 'idle', message: 'run cancelled' });
   }
 
@@ -106,5 +173,6 @@ export class AuditController {
 
   dispose(): void {
     this.worker.terminate();
+    for (const h of this.helpers) h.worker.terminate();
   }
 }
