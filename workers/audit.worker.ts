@@ -53,10 +53,49 @@ export interface ExplorerResponse {
 
 let current = 0;
 
+/**
+ * Results of rows already audited under the same choices, keyed by (choices, row number, cells): an
+ * edit to one cell re-audits one row. Safe because a row's numbers depend only on these (its random
+ * stream is seeded by (seed, row number)). Bounded; cleared when full.
+ */
+const rowCache = new Map<string, GalaxyRow>();
+const curveCache = new Map<string, CeilingCurves>();
+
+function cachedRow(prep: ReturnType<typeof prepareAudit>, choicesKey: string, i: number): GalaxyRow {
+  const r = prep.parsed.rows[i];
+  const key = `${choicesKey}|${r.row}|${JSON.stringify(r.raw)}`;
+  let g = rowCache.get(key);
+  if (!g) {
+    g = auditRow(prep, i);
+    if (rowCache.size > 20000) rowCache.clear();
+    rowCache.set(key, g);
+  }
+  return g;
+}
+
+function curvesFor(req: AuditRequest, prep: ReturnType<typeof prepareAudit>): CeilingCurves {
+  const c = req.choices;
+  const key = JSON.stringify([c.cosmology, c.transfer, c.massFunction, c.deltaC, c.survey, c.epsRef, c.quantile, c.sliceDz]);
+  let v = curveCache.get(key);
+  if (!v) {
+    const s = c.survey;
+    v = ceilingCurves(prep.ctx.halo, prep.ctx.ceilingFor(undefined), c.epsRef, Math.max(0.5, s.zMin - 1), s.zMax + 1);
+    if (curveCache.size > 32) curveCache.clear();
+    curveCache.set(key, v);
+  }
+  // copies: the cached arrays stay here, the copies are transferred
+  return {
+    z: v.z.slice(),
+    log10MstarEps1: v.log10MstarEps1.slice(),
+    log10MstarEpsRef: v.log10MstarEpsRef.slice(),
+    log10MstarEps1Q16: v.log10MstarEps1Q16.slice(),
+    log10MstarEps1Q84: v.log10MstarEps1Q84.slice(),
+  };
+}
+
 function respond(req: AuditRequest, prep: ReturnType<typeof prepareAudit>, galaxies: GalaxyRow[], elapsedMs: number): AuditResponse {
   const result = finishAudit(prep, galaxies);
-  const s = req.choices.survey;
-  const curves = ceilingCurves(prep.ctx.halo, prep.ctx.ceilingFor(undefined), req.choices.epsRef, Math.max(0.5, s.zMin - 1), s.zMax + 1);
+  const curves = curvesFor(req, prep);
   const imfs = [...new Set(result.galaxies.flatMap((g) => (g.imf ? Object.keys(g.imf) : [])))];
   const points = galaxyPoints(result, imfs);
   const resp: AuditResponse = { id: req.id, status: 'done', result, curves, points, markdown: auditMarkdown(result), csv: auditCsv(result), elapsedMs };
@@ -76,9 +115,10 @@ export const auditApi = {
     const prep = prepareAudit(req.csv, req.choices);
     const n = prep.parsed.rows.length;
     const galaxies: GalaxyRow[] = [];
+    const ck = JSON.stringify(req.choices);
     for (let i = 0; i < n; i++) {
       if (current !== req.id) return { id: req.id, status: 'cancelled', elapsedMs: performance.now() - t0 };
-      galaxies.push(auditRow(prep, i));
+      galaxies.push(cachedRow(prep, ck, i));
       if (onProgress) await onProgress(i + 1, n);
       if (i % 2 === 1) await tick();
     }
@@ -94,9 +134,10 @@ export const auditApi = {
     current = req.id;
     const prep = prepareAudit(req.csv, req.choices);
     const out: [number, GalaxyRow][] = [];
+    const ck = JSON.stringify(req.choices);
     for (let j = 0; j < indices.length; j++) {
       if (current !== req.id) return 'cancelled';
-      out.push([indices[j], auditRow(prep, indices[j])]);
+      out.push([indices[j], cachedRow(prep, ck, indices[j])]);
       if (onProgress) await onProgress(j + 1);
       if (j % 2 === 1) await tick();
     }

@@ -58,8 +58,10 @@ export class BaryonAuditApp extends LitElement {
     super.connectedCallback();
     this.restore();
     this.controller = new AuditController((s) => this.onController(s));
+    // The halo-abundance explorer is cheap and independent of the sample: ask for it first so the first
+    // figure appears while the audit runs.
+    void this.loadExplorer();
     this.schedule(0);
-    this.loadExplorer();
     window.addEventListener('hashchange', this.onHash);
   }
 
@@ -100,7 +102,7 @@ export class BaryonAuditApp extends LitElement {
     } else if (saved.problem) this.notice = `Note: ${saved.problem}.`;
   }
 
-  private schedule(delay = 150): void {
+  private schedule(delay = 10): void {
     clearTimeout(this.timer);
     this.timer = setTimeout(() => {
       save(localStorage, makeRecord(this.csv, this.choices));

@@ -2,7 +2,7 @@ import type { AuditChoices } from '../core/audit/choices.js';
 import { PLANCK18 } from '../core/cosmology/presets.js';
 import { DEMO_SURVEY } from '../demo/demo-sample.js';
 
-/** The page's starting choices: the demo field, Planck 2018, Sheth–Tormen, EH98, 4000 draws (fast first view). */
+/** The page's starting choices: the demo field, Planck 2018, Sheth–Tormen, EH98, 2000 draws (a fast first view; raise it for final numbers). */
 export const DEFAULT_CHOICES: AuditChoices = Object.freeze({
   cosmology: PLANCK18,
   massFunction: 'sheth-tormen',
@@ -13,7 +13,7 @@ export const DEFAULT_CHOICES: AuditChoices = Object.freeze({
   metallicity: 0.02,
   epsRef: 0.3,
   quantile: 0.997,
-  draws: 4000,
+  draws: 2000,
   seed: 1,
   sliceDz: 1,
   formationZ: 30,

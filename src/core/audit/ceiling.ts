@@ -8,7 +8,7 @@ import type { HaloModel } from '../halos/halo-model.js';
  * field's redshift slice [z − Δ/2, z + Δ/2] (Δ = sliceDz, clipped at z = 0.02), at quantile q of its
  * extreme-value distribution Φ(M_max < M) = exp[−N(>M)] (Harrison & Coles 2011, Poisson limit),
  * N(>M) = Ω ∫ dz (dV/dz dΩ) n(>M, z) over the slice.
- * Tabulated on a 0.05 grid in z (Simpson's rule over the slice) and interpolated in log M.
+ * Tabulated on a 0.1 grid in z (Simpson's rule over the slice) and interpolated in log M.
  *
  * With cosmic variance, halo counts in the field scatter as N → N·e^{s g − s²/2}, g ~ N(0,1),
  * s² = ln[1 + (b σ_dm)²], with b the Sheth, Mo & Tormen 2001 bias at M and σ_dm the rms matter
@@ -34,7 +34,7 @@ export interface CeilingTable {
   sliceLimits(z: number): [number, number];
 }
 
-const STEP = 0.05;
+const STEP = 0.1;
 
 export function makeCeilingTable(halo: HaloModel, areaArcmin2: number, quantile: number, zMinNeeded: number, zMaxNeeded: number, sliceDz = 1): CeilingTable {
   if (!(quantile > 0 && quantile < 1)) throw new RangeError(`quantile must lie strictly between 0 and 1 (got ${quantile})`);

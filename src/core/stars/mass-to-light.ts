@@ -4,8 +4,8 @@ import { POST_MS_DURATION, type Population } from './population.js';
 
 /**
  * Tables of log10 L_ν (erg s⁻¹ Hz⁻¹ per Msun formed) and log10 of the surviving fraction over
- * log-spaced population ages (1 Myr–14 Gyr, 100 points) and rest wavelengths (Lyman-α–1 μm,
- * 24 points), bilinear in (log age, log λ). Built once per (IMF, SFH); used by the Monte Carlo
+ * log-spaced population ages (1 Myr–14 Gyr, 80 points) and rest wavelengths (Lyman-α–1 μm,
+ * 20 points), bilinear in (log age, log λ). Built once per (IMF, SFH); used by the Monte Carlo
  * so that one mass estimate costs a table lookup instead of a synthesis.
  */
 export interface MassToLightTable {
@@ -30,7 +30,7 @@ export interface MassToLightTable {
 export const ML_AGE_MIN_MYR = 1;
 export const ML_AGE_MAX_MYR = 14000;
 
-export function makeMassToLightTable(pop: Population, sfh: Sfh, nAge = 100, nLam = 24): MassToLightTable {
+export function makeMassToLightTable(pop: Population, sfh: Sfh, nAge = 80, nLam = 20): MassToLightTable {
   const la0 = Math.log10(ML_AGE_MIN_MYR);
   const la1 = Math.log10(ML_AGE_MAX_MYR);
   const ll0 = Math.log10(MODEL_LAMBDA_MIN_UM);

@@ -5,7 +5,7 @@ import type { Sfh } from './sfh.js';
 
 /**
  * Populations and mass-to-light tables, built once per (IMF, redshift bucket, metallicity) and
- * (…, SFH). The CMB-heated IMF depends on z; it is evaluated at z rounded to 0.1.
+ * (…, SFH). The CMB-heated IMF depends on z; it is evaluated at z rounded to 0.5 (its characteristic mass changes by ≲ 10% per 0.5 in z at z ≈ 10).
  */
 export interface PopulationCache {
   population(imfName: string, z: number): Population;
@@ -15,12 +15,12 @@ export interface PopulationCache {
 export function makePopulationCache(metallicity = 0.02): PopulationCache {
   const pops = new Map<string, Population>();
   const tabs = new Map<string, MassToLightTable>();
-  const zKey = (name: string, z: number): string => (name === 'top-heavy-cmb' ? `${name}@${(Math.round(z * 10) / 10).toFixed(1)}` : name);
+  const zKey = (name: string, z: number): string => (name === 'top-heavy-cmb' ? `${name}@${(Math.round(z * 2) / 2).toFixed(1)}` : name);
   const population = (name: string, z: number): Population => {
     const k = zKey(name, z);
     let p = pops.get(k);
     if (!p) {
-      p = makePopulation(resolveImf(name, Math.round(z * 10) / 10), { metallicity });
+      p = makePopulation(resolveImf(name, Math.round(z * 2) / 2), { metallicity });
       pops.set(k, p);
     }
     return p;

@@ -1,0 +1,105 @@
+#!/usr/bin/env node
+// npm run bench:web (also run by npm run bench): the web app in Debian's headless Chromium.
+// Measures load → first complete figure on the demo, edit → updated figure over 50 edits (p50/p95),
+// and the gzipped bundle sizes. A benchmark, not a test: it prints, it never fails on a target.
+import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { tmpdir, cpus } from 'node:os';
+import { join } from 'node:path';
+import { gzipSync } from 'node:zlib';
+import { chromium } from 'playwright-core';
+import { buildIfNeeded, serve } from '../../src/cli/serve.mjs';
+
+const ARGS = ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'];
+const q = (xs, p) => {
+  const s = [...xs].sort((a, b) => a - b);
+  const h = (s.length - 1) * p;
+  const lo = Math.floor(h);
+  return s[lo] + (h - lo) * ((s[Math.min(lo + 1, s.length - 1)] ?? s[lo]) - s[lo]);
+};
+
+buildIfNeeded();
+const server = await serve(0);
+const base = `http://127.0.0.1:${server.address().port}/`;
+const profile = mkdtempSync(join(tmpdir(), 'ba-bench-'));
+const ctx = await chromium.launchPersistentContext(profile, { executablePath: '/usr/bin/chromium', headless: true, args: ARGS, viewport: { width: 1280, height: 800 } });
+await ctx.addInitScript(() => {
+  window.__events = [];
+  document.addEventListener('audit-complete', () => window.__events.push(['audit', performance.now()]));
+  document.addEventListener('chart-drawn', (e) => window.__events.push(['chart', performance.now(), e.detail.id]));
+});
+const rows = [];
+try {
+  const loads = [];
+  const firsts = [];
+  for (let i = 0; i < 5; i++) {
+    const page = await ctx.newPage();
+    await page.goto(base);
+    await page.evaluate(() => localStorage.clear());
+    await page.reload();
+    await page.waitForFunction(() => window.__events.some((e) => e[0] === 'audit'), null, { timeout: 60000 });
+    loads.push(await page.evaluate(() => window.__events.find((e) => e[0] === 'audit')[1]));
+    firsts.push(await page.evaluate(() => window.__events.find((e) => e[0] === 'chart')[1]));
+    await page.close();
+  }
+  rows.push(['load → first complete figure (the halo-abundance explorer)', `${q(firsts, 0.5).toFixed(0)} ms`, '≤ 1000 ms']);
+  rows.push(['load → complete demo audit with all figures (8 galaxies, 2000 draws, 5 IMFs)', `${q(loads, 0.5).toFixed(0)} ms`, '—']);
+  const page = await ctx.newPage();
+  await page.goto(base);
+  await page.waitForFunction(() => window.__events.some((e) => e[0] === 'audit'), null, { timeout: 60000 });
+  const lat = [];
+  for (let i = 0; i < 50; i++) {
+    const dt = await page.evaluate(async (seed) => {
+      const app = document.querySelector('baryon-audit-app');
+      const panel = app.shadowRoot.querySelector('choice-panel');
+      const input = [...panel.shadowRoot.querySelectorAll('input[type=number]')].find((x) => x.parentElement.textContent.startsWith('seed'));
+      const n0 = window.__events.length;
+      const t0 = performance.now();
+      input.value = String(seed);
+      input.dispatchEvent(new Event('change'));
+      await new Promise((ok) => {
+        const tick = () => (window.__events.slice(n0).some((e) => e[0] === 'audit') ? ok() : setTimeout(tick, 2));
+        tick();
+      });
+      const ev = window.__events.slice(n0).filter((e) => e[0] === 'chart' && e[2] === 'mass-redshift').pop();
+      return (ev ? ev[1] : performance.now()) - t0;
+    }, 100 + i);
+    lat.push(dt);
+  }
+  rows.push(['choice edit → updated figure, p50 over 50 edits (seed: every row re-audited)', `${q(lat, 0.5).toFixed(0)} ms`, '—']);
+  rows.push(['choice edit → updated figure, p95 over 50 edits', `${q(lat, 0.95).toFixed(0)} ms`, '—']);
+  const cell = [];
+  for (let i = 0; i < 50; i++) {
+    const dt = await page.evaluate(async (v) => {
+      const app = document.querySelector('baryon-audit-app');
+      const ed = app.shadowRoot.querySelector('sample-editor');
+      const input = ed.shadowRoot.querySelector('input[aria-label="row 3, log_mstar"]');
+      const n0 = window.__events.length;
+      const t0 = performance.now();
+      input.value = String(v);
+      input.dispatchEvent(new Event('change'));
+      await new Promise((ok) => {
+        const tick = () => (window.__events.slice(n0).some((e) => e[0] === 'audit') ? ok() : setTimeout(tick, 2));
+        tick();
+      });
+      const ev = window.__events.slice(n0).filter((e) => e[0] === 'chart' && e[2] === 'mass-redshift').pop();
+      return (ev ? ev[1] : performance.now()) - t0;
+    }, (11 + (i % 10) / 20).toFixed(2));
+    cell.push(dt);
+  }
+  rows.push(['sample-cell edit → updated figure, p50 over 50 edits (one row re-audited)', `${q(cell, 0.5).toFixed(0)} ms`, '—']);
+  rows.push(['sample-cell edit → updated figure, p95 over 50 edits', `${q(cell, 0.95).toFixed(0)} ms`, '≤ 100 ms']);
+} finally {
+  await ctx.close();
+  server.close();
+  rmSync(profile, { recursive: true, force: true });
+}
+const gz = (f) => gzipSync(readFileSync(join('public', f))).length;
+const app = gz('app.js');
+const worker = gz('audit.worker.js');
+rows.push(['bundle app.js gzipped', `${(app / 1024).toFixed(1)} kB`, '—']);
+rows.push(['bundle audit.worker.js gzipped', `${(worker / 1024).toFixed(1)} kB`, '—']);
+rows.push(['app + worker gzipped', `${((app + worker) / 1024).toFixed(1)} kB`, '≤ 120 kB']);
+console.log(`\nWeb app benchmarks (headless Chromium, ${cpus().length} cores)\n`);
+for (const r of rows) console.log(`${r[0].padEnd(72)} ${r[1].padStart(10)}   target ${r[2]}`);
+console.log('\n| benchmark | median | target |\n| --- | --- | --- |');
+for (const r of rows) console.log(`| ${r.join(' | ')} |`);
