@@ -77,7 +77,7 @@ console.log(`   cost ∝ N^${slope(bSizes, bTimes).toFixed(2)}`);
 const sfhs = ['burst', 'constant', 'exp-declining:100', 'exp-rising:100'].map(parseSfh);
 const imfs = ['salpeter', 'kroupa', 'chabrier', 'top-heavy-flat', 'top-heavy-cmb'];
 let cache = makePopulationCache();
-report('population tables, 5 IMFs × 4 SFHs × 100 ages × 24 λ (cold)', time(() => {
+report('population tables, 5 IMFs × 4 SFHs × 80 ages × 20 λ (cold)', time(() => {
   cache = makePopulationCache();
   for (const i of imfs) for (const s of sfhs) cache.table(i, 10, s);
 }, 3), '≤ 200 ms');

@@ -80,11 +80,30 @@ export function makeHaloModel(options: HaloModelOptions, shared?: HaloModelShare
   };
   const g = gaussLegendre(GL_N);
   const lnMax = table.log10MMax * Math.LN10;
+  // σ0, |dlnσ/dlnM|, M and the quadrature weight at every Gauss point of every table interval,
+  // computed once: a new redshift then costs only the multiplicity function at these points.
+  const nodes = table.log10M.length;
+  const nq = (nodes - 1) * GL_N;
+  const qM = new Float64Array(nq);
+  const qSigma0 = new Float64Array(nq);
+  const qSlope = new Float64Array(nq);
+  const qW = new Float64Array(nq);
+  for (let i = 0; i < nodes - 1; i++) {
+    const la = table.log10M[i] * Math.LN10;
+    const lb = table.log10M[i + 1] * Math.LN10;
+    for (let k = 0; k < GL_N; k++) {
+      const j = i * GL_N + k;
+      const m = Math.exp(0.5 * (la + lb) + 0.5 * (lb - la) * g.x[k]);
+      qM[j] = m;
+      qSigma0[j] = table.sigma0(m);
+      qSlope[j] = table.dlnSigmaDlnM(m);
+      qW[j] = 0.5 * (lb - la) * g.w[k];
+    }
+  }
 
   const slice = (z: number): HaloSlice => {
     const d = growth.d(z);
     const dc = deltaC(z);
-    const nodes = table.log10M.length;
     // cumN[i] = ∫ from node i to the top of the table.
     const cumN = new Float64Array(nodes);
     const cumR = new Float64Array(nodes);
@@ -103,7 +122,16 @@ export function makeHaloModel(options: HaloModelOptions, shared?: HaloModelShare
       return [sn * half, sr * half];
     };
     for (let i = nodes - 2; i >= 0; i--) {
-      const [sn, sr] = seg(table.log10M[i] * Math.LN10, table.log10M[i + 1] * Math.LN10);
+      let sn = 0;
+      let sr = 0;
+      for (let k = 0; k < GL_N; k++) {
+        const j = i * GL_N + k;
+        const m = qM[j];
+        const slope = qSlope[j];
+        const v = model.f({ sigma: qSigma0[j] * d, deltaC: dc, z, nEff: -6 * slope - 3 }) * (rho / m) * Math.abs(slope) * qW[j];
+        sn += v;
+        sr += v * m;
+      }
       cumN[i] = cumN[i + 1] + sn;
       cumR[i] = cumR[i + 1] + sr;
     }
