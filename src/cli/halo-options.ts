@@ -16,7 +16,7 @@ export const HALO_HELP = `Halo abundance:
   --model NAME        mass function: ${MASS_FUNCTION_NAMES.join(', ')} (default sheth-tormen)
   --transfer NAME     ${TRANSFER_NAMES.join(', ')}, or table (needs --pk-file) (default eh98)
   --pk-file FILE      tabulated P(k) at z = 0: two columns, k [1/Mpc] and P [Mpc^3]
-  --delta-c X|omega-m collapse threshold (default 1.686; omega-m = 1.686[1+0.0123 log10 Ωm(z)])`;
+  --delta-c X|omega-m collapse threshold in [1, 2.5] (default 1.686; omega-m = 1.686[1+0.0123 log10 Ωm(z)])`;
 
 export function haloChoices(values: Parsed['values']): { massFunction: string; transfer: TransferSpec; deltaC: DeltaCSpec } {
   const massFunction = choice('model', values.model, MASS_FUNCTION_NAMES, 'sheth-tormen');
@@ -40,6 +40,6 @@ export function haloChoices(values: Parsed['values']): { massFunction: string; t
     transfer = { kind: tName };
   }
   const dcRaw = values['delta-c'];
-  const deltaC: DeltaCSpec = dcRaw === 'omega-m' ? { kind: 'omega-m' } : { kind: 'constant', value: dcRaw === undefined ? 1.686 : num('delta-c', dcRaw, { gt: 0, max: 10 }) };
+  const deltaC: DeltaCSpec = dcRaw === 'omega-m' ? { kind: 'omega-m' } : { kind: 'constant', value: dcRaw === undefined ? 1.686 : num('delta-c', dcRaw, { min: 1, max: 2.5 }) };
   return { massFunction, transfer, deltaC };
 }

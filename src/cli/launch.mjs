@@ -1,7 +1,7 @@
 #!/usr/bin/env node
 // Runs the command-line tool, bundling src/cli/main.ts with esbuild first when any source is newer
 // than the cached bundle (node_modules/.cache/baryon-audit/cli.mjs).
-import { existsSync, readdirSync, statSync, mkdirSync } from 'node:fs';
+import { existsSync, readdirSync, statSync } from 'node:fs';
 import { dirname, join, resolve } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 
@@ -20,18 +20,8 @@ function newest(dir) {
 
 const stale = !existsSync(out) || newest(join(root, 'src')) > statSync(out).mtimeMs;
 if (stale) {
-  const esbuild = await import('esbuild');
-  mkdirSync(dirname(out), { recursive: true });
-  await esbuild.build({
-    entryPoints: [join(root, 'src/cli/main.ts')],
-    bundle: true,
-    platform: 'node',
-    format: 'esm',
-    target: 'node20',
-    outfile: out,
-    logLevel: 'error',
-    banner: { js: "import { createRequire as __cr } from 'node:module'; const require = __cr(import.meta.url);" },
-  });
+  const { bundleForNode } = await import('./bundle.mjs');
+  await bundleForNode(join(root, 'src/cli/main.ts'), out);
 }
 const { main } = await import(pathToFileURL(out).href);
 process.exitCode = await main(process.argv.slice(2));

@@ -7,11 +7,11 @@ import { IMF_PRESETS } from '../core/stars/index.js';
 
 type NumKey = 'epsRef' | 'quantile' | 'draws' | 'seed' | 'sliceDz' | 'formationZ';
 const NUM_FIELDS: { key: NumKey; label: string; min: number; max: number; step: string; help: string }[] = [
-  { key: 'epsRef', label: 'ε_ref', min: 0.001, max: 1, step: '0.05', help: 'reference star-formation efficiency: above it a galaxy is strained' },
+  { key: 'epsRef', label: 'ε_ref', min: 0.0001, max: 1, step: '0.05', help: 'reference star-formation efficiency: above it a galaxy is strained' },
   { key: 'quantile', label: 'rarest-halo quantile', min: 0.5, max: 0.99999, step: '0.001', help: 'quantile of the most-massive-halo distribution used as the ceiling' },
   { key: 'draws', label: 'Monte Carlo draws', min: 100, max: 200000, step: '1000', help: 'draws per galaxy' },
   { key: 'seed', label: 'seed', min: -2147483647, max: 2147483647, step: '1', help: 'random seed (same seed, same numbers)' },
-  { key: 'sliceDz', label: 'slice Δz', min: 0.05, max: 5, step: '0.1', help: 'width of the redshift slice around each galaxy' },
+  { key: 'sliceDz', label: 'slice Δz', min: 0.1, max: 5, step: '0.1', help: 'width of the redshift slice around each galaxy' },
   { key: 'formationZ', label: 'formation z', min: 1, max: 100, step: '1', help: 'formation redshift for the time budget' },
 ];
 

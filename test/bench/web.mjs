@@ -46,46 +46,34 @@ try {
   const page = await ctx.newPage();
   await page.goto(base);
   await page.waitForFunction(() => window.__events.some((e) => e[0] === 'audit'), null, { timeout: 60000 });
-  const lat = [];
-  for (let i = 0; i < 50; i++) {
-    const dt = await page.evaluate(async (seed) => {
-      const app = document.querySelector('baryon-audit-app');
-      const panel = app.shadowRoot.querySelector('choice-panel');
-      const input = [...panel.shadowRoot.querySelectorAll('input[type=number]')].find((x) => x.parentElement.textContent.startsWith('seed'));
-      const n0 = window.__events.length;
-      const t0 = performance.now();
-      input.value = String(seed);
-      input.dispatchEvent(new Event('change'));
-      await new Promise((ok) => {
-        const tick = () => (window.__events.slice(n0).some((e) => e[0] === 'audit') ? ok() : setTimeout(tick, 2));
-        tick();
-      });
-      const ev = window.__events.slice(n0).filter((e) => e[0] === 'chart' && e[2] === 'mass-redshift').pop();
-      return (ev ? ev[1] : performance.now()) - t0;
-    }, 100 + i);
-    lat.push(dt);
-  }
+  /** Latency from a change event on an input to the redrawn stellar-mass figure, 50 times. */
+  const measure = (host, selector, value) =>
+    Array.from({ length: 50 }).reduce(async (acc, _, i) => {
+      const list = await acc;
+      const dt = await page.evaluate(
+        async ([h, sel, v]) => {
+          const app = document.querySelector('baryon-audit-app');
+          const el = app.shadowRoot.querySelector(h);
+          const input = sel.startsWith('seed') ? [...el.shadowRoot.querySelectorAll('input[type=number]')].find((x) => x.parentElement.textContent.startsWith('seed')) : el.shadowRoot.querySelector(sel);
+          const n0 = window.__events.length;
+          const t0 = performance.now();
+          input.value = String(v);
+          input.dispatchEvent(new Event('change'));
+          await new Promise((ok) => {
+            const tick = () => (window.__events.slice(n0).some((e) => e[0] === 'audit') ? ok() : setTimeout(tick, 2));
+            tick();
+          });
+          const ev = window.__events.slice(n0).filter((e) => e[0] === 'chart' && e[2] === 'mass-redshift').pop();
+          return (ev ? ev[1] : performance.now()) - t0;
+        },
+        [host, selector, value(i)],
+      );
+      return [...list, dt];
+    }, Promise.resolve([]));
+  const lat = await measure('choice-panel', 'seed', (i) => 100 + i);
   rows.push(['choice edit → updated figure, p50 over 50 edits (seed: every row re-audited)', `${q(lat, 0.5).toFixed(0)} ms`, '—']);
   rows.push(['choice edit → updated figure, p95 over 50 edits', `${q(lat, 0.95).toFixed(0)} ms`, '—']);
-  const cell = [];
-  for (let i = 0; i < 50; i++) {
-    const dt = await page.evaluate(async (v) => {
-      const app = document.querySelector('baryon-audit-app');
-      const ed = app.shadowRoot.querySelector('sample-editor');
-      const input = ed.shadowRoot.querySelector('input[aria-label="row 3, log_mstar"]');
-      const n0 = window.__events.length;
-      const t0 = performance.now();
-      input.value = String(v);
-      input.dispatchEvent(new Event('change'));
-      await new Promise((ok) => {
-        const tick = () => (window.__events.slice(n0).some((e) => e[0] === 'audit') ? ok() : setTimeout(tick, 2));
-        tick();
-      });
-      const ev = window.__events.slice(n0).filter((e) => e[0] === 'chart' && e[2] === 'mass-redshift').pop();
-      return (ev ? ev[1] : performance.now()) - t0;
-    }, (11 + (i % 10) / 20).toFixed(2));
-    cell.push(dt);
-  }
+  const cell = await measure('sample-editor', 'input[aria-label="row 3, log_mstar"]', (i) => (11 + (i % 10) / 20).toFixed(2));
   rows.push(['sample-cell edit → updated figure, p50 over 50 edits (one row re-audited)', `${q(cell, 0.5).toFixed(0)} ms`, '—']);
   rows.push(['sample-cell edit → updated figure, p95 over 50 edits', `${q(cell, 0.95).toFixed(0)} ms`, '≤ 100 ms']);
 } finally {

@@ -39,7 +39,7 @@ describe('every CLI flag with hostile values, property-based', () => {
             expect(r.out).not.toMatch(/\bNaN\b|Infinity/);
           }
         }),
-        { numRuns: cmd === 'assess' ? 12 : 40 },
+        { numRuns: Number(process.env.CLI_PROP_RUNS ?? (cmd === "assess" ? 12 : 40)) },
       );
     }, 120000);
   }

@@ -39,11 +39,11 @@ export const RESCALE_REST_UM = 0.4;
 
 export function validateChoices(c: AuditChoices): string[] {
   const e: string[] = [];
-  if (!(c.epsRef > 0 && c.epsRef <= 1)) e.push(`--eps-ref must lie in (0, 1] (got ${c.epsRef})`);
+  if (!(c.epsRef >= 1e-4 && c.epsRef <= 1)) e.push(`--eps-ref must lie in [1e-4, 1] (got ${c.epsRef})`);
   if (!(c.quantile > 0 && c.quantile < 1)) e.push(`--quantile must lie strictly between 0 and 1 (got ${c.quantile})`);
   if (!(Number.isInteger(c.draws) && c.draws >= 100 && c.draws <= 1e6)) e.push(`--draws must be a whole number in [100, 1e6] (got ${c.draws})`);
   if (!(Number.isInteger(c.seed) && Math.abs(c.seed) < 2 ** 31)) e.push(`--seed must be a whole number with |seed| < 2^31 (got ${c.seed})`);
-  if (!(c.sliceDz > 0 && c.sliceDz <= 5)) e.push(`--slice-dz must lie in (0, 5] (got ${c.sliceDz})`);
+  if (!(c.sliceDz >= 0.1 && c.sliceDz <= 5)) e.push(`--slice-dz must lie in [0.1, 5] (got ${c.sliceDz})`);
   if (!(c.formationZ > 0 && c.formationZ <= 100)) e.push(`--formation-z must lie in (0, 100] (got ${c.formationZ})`);
   if (!c.imfs.length) e.push('--imf: at least one IMF');
   return e;

@@ -2,26 +2,16 @@ import { describe, expect, it } from 'vitest';
 import { PLANCK18 } from '../../../src/core/cosmology/index.js';
 import { makeHaloModel } from '../../../src/core/halos/index.js';
 import { auditCsv, auditMarkdown, runAudit, type AuditChoices } from '../../../src/core/audit/index.js';
+import { DEFAULT_CHOICES } from '../../../src/ui/default-choices.js';
 
 const rel = (a: number, b: number): number => Math.abs(a / b - 1);
 
+// The page's defaults (Planck 2018, Sheth–Tormen, EH98, the five IMF presets), on a test field.
 const choices = (over: Partial<AuditChoices> = {}): AuditChoices => ({
-  cosmology: PLANCK18,
-  massFunction: 'sheth-tormen',
-  transfer: { kind: 'eh98' },
-  deltaC: { kind: 'constant', value: 1.686 },
-  imfs: ['salpeter', 'chabrier', 'kroupa', 'top-heavy-flat', 'top-heavy-cmb'],
-  sfh: 'constant',
-  metallicity: 0.02,
-  epsRef: 0.3,
-  quantile: 0.997,
+  ...DEFAULT_CHOICES,
   draws: 2000,
   seed: 7,
-  sliceDz: 1,
-  formationZ: 30,
   survey: { name: 'test-field', areaArcmin2: 40, zMin: 7, zMax: 11 },
-  surveys: [],
-  zBins: [],
   ...over,
 });
 
