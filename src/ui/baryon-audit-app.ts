@@ -32,6 +32,8 @@ export class BaryonAuditApp extends LitElement {
   private controller?: AuditController;
   private timer?: ReturnType<typeof setTimeout>;
   private lastShown = 0;
+  /** Figure models of the response on show, rebuilt only when the response or the selection changes. */
+  private figCache?: { id: number; selected: string; figs: ChartModel[] };
 
   static styles = css`
     :host { display: block; font-family: system-ui, sans-serif; color: #111; }
@@ -102,7 +104,7 @@ export class BaryonAuditApp extends LitElement {
     } else if (saved.problem) this.notice = `Note: ${saved.problem}.`;
   }
 
-  private schedule(delay = 10): void {
+  private schedule(delay = 0): void {
     clearTimeout(this.timer);
     this.timer = setTimeout(() => {
       save(localStorage, makeRecord(this.csv, this.choices));
@@ -189,7 +191,16 @@ export class BaryonAuditApp extends LitElement {
     const resp = this.ctl.response;
     const result = resp?.result;
     const problems: RowProblem[] = result ? result.galaxies.flatMap((g) => g.errors) : [];
-    const figs: ChartModel[] = result && resp?.curves && resp.points ? [massRedshiftFigure(result, resp.curves, resp.points), densityFigure(result), galaxyImfFigure(result, this.selected)] : [];
+    let figs: ChartModel[] = [];
+    if (result && resp?.curves && resp.points) {
+      const c = this.figCache;
+      if (c && c.id === resp.id && c.selected === this.selected) figs = c.figs;
+      else {
+        const old = c && c.id === resp.id ? c.figs : undefined;
+        figs = [old?.[0] ?? massRedshiftFigure(result, resp.curves, resp.points), old?.[1] ?? densityFigure(result), galaxyImfFigure(result, this.selected)];
+        this.figCache = { id: resp.id, selected: this.selected, figs };
+      }
+    }
     return html`
       <header>
         <h1>Baryon Audit</h1>
