@@ -119,7 +119,6 @@ export function auditGalaxy(ctx: AuditContext, g: GalaxyInput, index: number): G
   const imfResults: Record<string, ImfResult> = {};
   let eddington = { slope_alpha: 0, sigma_dex: 0, shift_dex: 0, method: '' };
   let headlineLogM = Number.NaN;
-  const sl = halo.slice(g.z);
   const tableOf = (imf: string): MassToLightTable => ctx.cache.table(imf, g.z, ctx.sfh);
   const refTable = g.imfRef ? tableOf(g.imfRef) : undefined;
   const posn = drawPositions(g, d, tableOf(imfs[0]), valid);
@@ -155,7 +154,7 @@ export function auditGalaxy(ctx: AuditContext, g: GalaxyInput, index: number): G
     const sigmaDex = g.log10Mstar !== undefined ? g.log10MstarErr : 0.4 * g.magErr;
     const epsHost = Math.min(1, Math.max(med, choices.epsRef));
     const mHost = Math.min(Math.max(10 ** lmMed / (fb * epsHost), 1e3), 1e18);
-    const alpha = -Math.log(sl.dndlnM(mHost * 1.1) / sl.dndlnM(mHost / 1.1)) / Math.log(1.21);
+    const alpha = -Math.log(halo.dndlnM(mHost * 1.1, g.z) / halo.dndlnM(mHost / 1.1, g.z)) / Math.log(1.21);
     const shift = alpha * sigmaDex * sigmaDex * Math.LN10;
     if (imf === headline) {
       eddington = {
