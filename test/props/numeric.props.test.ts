@@ -11,7 +11,7 @@ const cosmoArb = fc.record({
   omegaK: fc.double({ min: -0.1, max: 0.1, noNaN: true }),
   w0: fc.double({ min: -1.5, max: -0.6, noNaN: true }),
   wa: fc.double({ min: -0.5, max: 0.3, noNaN: true }),
-  tcmbK: fc.double({ min: 0, max: 3, noNaN: true }),
+  tcmbK: fc.oneof(fc.constant(0), fc.double({ min: 1, max: 3, noNaN: true })),
 });
 const asParams = (c: { h0: number; omegaM: number; omegaK: number; w0: number; wa: number; tcmbK: number }): CosmologyParams => ({ ...PLANCK18, ...c, omegaB: 0.15 * c.omegaM });
 

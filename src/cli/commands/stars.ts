@@ -1,5 +1,5 @@
 import { makeBackground } from '../../core/cosmology/index.js';
-import { currentSfrPerMassFormed, IMF_PRESETS, makePopulationCache, MODEL_LAMBDA_MAX_UM, MODEL_LAMBDA_MIN_UM } from '../../core/stars/index.js';
+import { currentSfrPerMassFormed, IMF_PRESETS, makePopulationCache } from '../../core/stars/index.js';
 import { COSMOLOGY_HELP, COSMOLOGY_OPTIONS, cosmologyFrom, format, num, parse } from '../args.js';
 import { CliError } from '../cli-error.js';
 import { toCsv, toJson } from '../output.js';
@@ -9,7 +9,8 @@ export const STARS_HELP = `Usage: stars --imf salpeter,chabrier --sfh constant -
        stars --list-imfs [--format json|csv]
 Population synthesis per IMF: L_ν per Msun formed [erg/s/Hz], surviving fraction (stars +
 remnants), returned fraction, mass-to-light [surviving Msun per erg/s/Hz] and, for constant SFR,
-SFR/L_ν [Msun/yr per erg/s/Hz]. --z sets the redshift for the CMB-heated IMF and caps the age at
+SFR/L_ν [Msun/yr per erg/s/Hz], at any rest wavelength from 0.1 to 1 μm (intrinsic light, before
+dust and the intergalactic medium). --z sets the redshift for the CMB-heated IMF and caps the age at
 the cosmic age there.
 
 ${STAR_HELP}
@@ -35,7 +36,6 @@ export function runStars(argv: string[]): string {
   const sfh = sfhFrom(values);
   const age = num('age-myr', values['age-myr'] ?? '100', { min: 1, max: 14000 });
   const lam = num('wavelength-um', values['wavelength-um'] ?? '0.15', { min: 0.1, max: 1 });
-  if (lam < MODEL_LAMBDA_MIN_UM) throw new CliError(`--wavelength-um ${lam} is blueward of Lyman-α (${MODEL_LAMBDA_MIN_UM} μm); the model covers ${MODEL_LAMBDA_MIN_UM}–${MODEL_LAMBDA_MAX_UM} μm`);
   const z = values.z === undefined ? undefined : num('z', values.z, { min: 0, max: 30 });
   if (z !== undefined) {
     const tMax = makeBackground(cosmologyFrom(values)).ageGyr(z) * 1e3;

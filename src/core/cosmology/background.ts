@@ -2,7 +2,7 @@ import { ARCMIN2_SR, C_KM_S, HUBBLE_TIME_GYR_KMSMPC } from '../constants.js';
 import { gaussLegendre } from '../numeric/gauss-legendre.js';
 import type { CosmologyParams } from './params.js';
 import { radiationDensity } from './radiation.js';
-import { assertCosmology, darkEnergyDensity, e2OfA } from './validate.js';
+import { assertCosmology, CosmologyError, darkEnergyDensity, e2OfA } from './validate.js';
 
 /**
  * Background expansion for one parameter set. Distances follow Hogg 1999 (arXiv:astro-ph/9905116)
@@ -80,6 +80,13 @@ export function makeBackground(params: CosmologyParams): Background {
   chiTab[NODES - 1] = 0;
   for (let j = NODES - 2; j >= 0; j--) chiTab[j] = chiTab[j + 1] + seg(chiF, uAt(j), uAt(j + 1));
   const age0 = ageTab[NODES - 1];
+  if (p.omegaK < 0 && Math.sqrt(-p.omegaK) * chiTab[0] > Math.PI / 2) {
+    // Beyond a quarter of a closed universe D_M stops growing (and past the antipode turns negative):
+    // luminosity distances would no longer order sources by redshift.
+    throw new CosmologyError([
+      { field: 'omegaK', flag: '--omega-k', message: `--omega-k: Ωk = ${p.omegaK} closes the universe so tightly that D_M stops growing with z (a source would look fainter at lower redshift); use a less negative Ωk` },
+    ]);
+  }
 
   const idx = (u: number): number => Math.min(NODES - 2, Math.max(0, Math.floor((u - U_MIN) / DU)));
   /** ∫_{-∞}^{u} du/E in t_H. */

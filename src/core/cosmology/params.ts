@@ -41,8 +41,8 @@ export interface ParamSpec {
 export const PARAM_SPECS: readonly ParamSpec[] = [
   { key: 'h0', flag: '--h0', label: 'H₀', unit: 'km/s/Mpc', min: 20, max: 150, doc: 'Hubble constant' },
   { key: 'omegaM', flag: '--omega-m', label: 'Ωm', unit: '', min: 0.01, max: 1.5, doc: 'matter density today (incl. baryons)' },
-  { key: 'omegaB', flag: '--omega-b', label: 'Ωb', unit: '', min: 0.0, max: 0.5, doc: 'baryon density today' },
-  { key: 'omegaK', flag: '--omega-k', label: 'Ωk', unit: '', min: -1, max: 1, doc: 'curvature density today' },
+  { key: 'omegaB', flag: '--omega-b', label: 'Ωb', unit: '', min: 1e-4, max: 0.5, doc: 'baryon density today (> 0: f_b sets the baryon budget)' },
+  { key: 'omegaK', flag: '--omega-k', label: 'Ωk', unit: '', min: -0.5, max: 1, doc: 'curvature density today' },
   { key: 'tcmbK', flag: '--tcmb', label: 'T_CMB', unit: 'K', min: 0, max: 10, doc: 'CMB temperature today' },
   { key: 'nEff', flag: '--neff', label: 'N_eff', unit: '', min: 0, max: 10, doc: 'massless neutrino species' },
   { key: 'w0', flag: '--w0', label: 'w₀', unit: '', min: -3, max: 0, doc: 'dark-energy equation of state today' },

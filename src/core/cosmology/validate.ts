@@ -53,6 +53,9 @@ export function validateCosmology(p: CosmologyParams): ParamProblem[] {
   if (p.omegaB > p.omegaM) {
     problems.push({ field: 'omegaB', flag: '--omega-b', message: `--omega-b: Ωb = ${p.omegaB} exceeds Ωm = ${p.omegaM}; baryons are part of the matter` });
   }
+  if (p.tcmbK > 0 && p.tcmbK < 1) {
+    problems.push({ field: 'tcmbK', flag: '--tcmb', message: `--tcmb: ${p.tcmbK} K is outside the transfer fits' domain; give a CMB temperature of 1–10 K, or 0 to switch radiation off` });
+  }
   if (!(p.sigma8 > 0)) problems.push({ field: 'sigma8', flag: '--sigma8', message: `--sigma8 must be > 0 (got ${p.sigma8})` });
   const omegaR = radiationDensity(p);
   const omegaDE = darkEnergyDensity(p);

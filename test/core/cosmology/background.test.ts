@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import fixture from '../../fixtures/astropy/background.json';
-import { makeBackground, PLANCK18, WMAP9, type CosmologyParams } from '../../../src/core/cosmology/index.js';
+import { makeBackground, PLANCK18, validateCosmology, WMAP9, type CosmologyParams } from '../../../src/core/cosmology/index.js';
 
 const base = { sigma8: 0.8, ns: 0.96 };
 const rel = (a: number, b: number): number => Math.abs(a / b - 1);
@@ -77,6 +77,15 @@ describe('background: published values and closed forms', () => {
     const omega = area * (Math.PI / 10800) ** 2;
     const v = bg.surveyVolumeMpc3(area, 9.9995, 10.0005);
     expect(rel(v, omega * bg.dVdzdOmegaMpc3(10) * 0.001)).toBeLessThan(1e-6);
+  });
+
+  it('refuses parameters with E(z)² ≤ 0 in the past (no hot big bang), Ωb > Ωm, σ8 ≤ 0 and NaN, naming each', () => {
+    const bad = (p: Partial<CosmologyParams>) => validateCosmology({ ...PLANCK18, ...p }).map((x) => x.message).join(' | ');
+    expect(bad({ omegaM: 0.05, omegaB: 0.01, omegaK: -0.5 })).toMatch(/E\(z\)² .* ≤ 0 at z = /);
+    expect(bad({ omegaB: 0.5, omegaM: 0.3 })).toMatch(/--omega-b/);
+    expect(bad({ sigma8: 0 })).toMatch(/--sigma8/);
+    expect(bad({ h0: Number.NaN })).toMatch(/--h0.*finite/);
+    expect(() => makeBackground({ ...PLANCK18, omegaM: 0.05, omegaB: 0.01, omegaK: -0.5 })).toThrow(/no hot big bang/);
   });
 
   it('refuses a negative redshift with a message naming it', () => {

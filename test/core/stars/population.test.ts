@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import fixture from '../../fixtures/astropy/background.json';
 import { makeBackground, PLANCK18 } from '../../../src/core/cosmology/index.js';
 import {
   absoluteFromApparent,
@@ -89,6 +90,14 @@ describe('photometry and dust', () => {
   });
   it('M_UV = −20 → L_ν = 4.3442e28 erg/s/Hz (log L = 0.4(51.595 − M), closed form)', () => {
     expect(rel(lnuFromAbsolute(-20), 4.3442e28)).toBeLessThan(1e-4);
+  });
+  it('distance modulus against the astropy fixture: M = m − 5 log10(D_L/10 pc) + 2.5 log10(1+z) with astropy\'s D_L, to 1e-4 mag', () => {
+    const c = fixture.cases.find((x) => x.name === 'flat_radiation')!;
+    const bg = makeBackground({ ...PLANCK18, ...c.params } as never);
+    for (const r of c.rows.filter((x) => x.z >= 6 && x.z <= 20)) {
+      const astropyM = 28 - 5 * Math.log10((r.luminosity_distance_mpc * 1e6) / 10) + 2.5 * Math.log10(1 + r.z);
+      expect(Math.abs(absoluteFromApparent(28, bg.luminosityDistanceMpc(r.z), r.z) - astropyM)).toBeLessThan(1e-4);
+    }
   });
   it('distance modulus with the astropy-checked luminosity distance: m and M at z = 10 are consistent with L_ν from D_L', () => {
     const bg = makeBackground(PLANCK18);
