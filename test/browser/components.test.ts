@@ -60,6 +60,35 @@ describe('<sample-editor>', () => {
   });
 });
 
+describe('<sample-editor> paste and drop', () => {
+  it('takes rows pasted from a spreadsheet (tab-separated) and turns them into CSV', async () => {
+    const el = mount<SampleEditor>('sample-editor');
+    el.csv = 'id,z,muv\n';
+    await el.updateComplete;
+    (Array.from(el.shadowRoot!.querySelectorAll('button')).find((b) => b.textContent?.startsWith('Paste')) as HTMLButtonElement).click();
+    await el.updateComplete;
+    const ta = el.shadowRoot!.querySelector('textarea') as HTMLTextAreaElement;
+    ta.value = 'id\tz\tmuv\nP-1\t9.5\t-21\nP-2\t8.1\t-20';
+    const got = new Promise<string>((ok) => el.addEventListener('sample-change', (e) => ok((e as CustomEvent).detail.csv), { once: true }));
+    (Array.from(el.shadowRoot!.querySelectorAll('button')).find((b) => b.textContent === 'Use pasted rows') as HTMLButtonElement).click();
+    const csv = await got;
+    expect(csv).to.contain('P-1,9.5,-21');
+    expect(csv).to.contain('P-2,8.1,-20');
+    el.remove();
+  });
+  it('imports a CSV file dropped on the table', async () => {
+    const el = mount<SampleEditor>('sample-editor');
+    el.csv = 'id,z,muv\nA,9,-20\n';
+    await el.updateComplete;
+    const got = new Promise<string>((ok) => el.addEventListener('sample-change', (e) => ok((e as CustomEvent).detail.csv), { once: true }));
+    const dt = new DataTransfer();
+    dt.items.add(new File(['id,z,muv\nDROP-1,7.5,-19\n'], 'drop.csv', { type: 'text/csv' }));
+    el.shadowRoot!.querySelector('.scroll')!.dispatchEvent(new DragEvent('drop', { dataTransfer: dt, bubbles: true, cancelable: true }));
+    expect(await got).to.contain('DROP-1,7.5,-19');
+    el.remove();
+  });
+});
+
 describe('<audit-chart>', () => {
   const model: ChartModel = {
     id: 't',
