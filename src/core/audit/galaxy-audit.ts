@@ -187,7 +187,7 @@ export function auditGalaxy(ctx: AuditContext, g: GalaxyInput, index: number): G
   if (g.zLo !== undefined && g.zLo < g.z) fixedChecks.push([Math.max(g.zLo, 0.05), 'z_lo', false]);
   const headTable = tableOf(headline);
   for (const [zf, kind, isAlt] of fixedChecks) {
-    const df = drawGalaxy(g, Math.min(n, 4000), seed, halo.background, { z: zf, alt: isAlt });
+    const df = drawGalaxy(g, Math.min(n, 2000), seed, halo.background, { z: zf, alt: isAlt });
     const eps: number[] = [];
     const lc = lfb + ceil.log10HaloMassAtQuantile(zf);
     for (let k = 0; k < df.n; k++) {

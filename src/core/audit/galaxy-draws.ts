@@ -91,15 +91,21 @@ export function drawGalaxy(g: GalaxyInput, n: number, seed: number, bgFull: Back
   const dl0 = bg.luminosityDistanceMpc(g.z);
   const lObs = Math.log10(lambdaObs);
   let excluded = 0;
+  const needAlt = g.zAlt !== undefined && g.pAlt > 0;
+  const needZ = sLo > 0 || sHi > 0 || needAlt;
+  const needMag = g.log10Mstar === undefined && g.magErr > 0;
+  const needBeta = g.log10Mstar === undefined && g.beta !== undefined && g.betaErr > 0;
+  const needMass = g.log10Mstar !== undefined && g.log10MstarErr > 0;
   const l0 = Math.log10(ML_AGE_MIN_MYR);
   for (let k = 0; k < n; k++) {
-    // Always consume the same number of deviates per draw so that streams stay aligned.
-    const uAlt = rnd.uniform();
-    const gz = rnd.normal();
+    // Only the deviates this row needs are drawn, always in the same order, so the main run and the
+    // fixed-redshift checks of one galaxy share their random numbers (common random numbers).
+    const uAlt = needAlt ? rnd.uniform() : 1;
+    const gz = needZ ? rnd.normal() : 0;
     const uAge = rnd.uniform();
-    const gMag = rnd.normal();
-    const gBeta = rnd.normal();
-    const gMass = rnd.normal();
+    const gMag = needMag ? rnd.normal() : 0;
+    const gBeta = needBeta ? rnd.normal() : 0;
+    const gMass = needMass ? rnd.normal() : 0;
     let zk: number;
     let isAlt: boolean;
     if (zOverride) {
