@@ -3,8 +3,8 @@ import { Worker, isMainThread, parentPort, workerData } from 'node:worker_thread
 import { auditRow, finishAudit, prepareAudit, type AuditChoices, type AuditResult, type GalaxyRow } from '../core/audit/index.js';
 
 /**
- * The audit on several cores: rows are dealt round-robin to worker threads (each builds its own
- * halo model and tables), the main thread builds its own meanwhile and finishes the sample level.
+ * The audit on several cores: rows are dealt round-robin to the main thread and N − 1 worker threads
+ * (each builds its own halo model and tables); the main thread then finishes the sample level.
  * Every row draws from its own seeded stream (seed, row), so the result is identical to a serial run.
  */
 interface Job {
@@ -34,8 +34,10 @@ export async function runAuditParallel(csv: string, choices: AuditChoices, jobs:
   if (jobs <= 1 || n < 2) return finishAudit(prepMain, prepMain.parsed.rows.map((_, i) => auditRow(prepMain, i)));
   const parts: number[][] = Array.from({ length: jobs }, () => []);
   for (let i = 0; i < n; i++) parts[i % jobs].push(i);
-  const results = await Promise.all(
-    parts.map(
+  // The main thread takes the first share itself (no extra thread competing for the cores).
+  const [mine, ...theirs] = parts;
+  const pending = Promise.all(
+    theirs.map(
       (indices) =>
         new Promise<[number, GalaxyRow][]>((resolve, reject) => {
           const w = new Worker(entry, { workerData: { kind: 'baryon-audit-rows', csv, choices, indices } satisfies Job });
@@ -48,6 +50,8 @@ export async function runAuditParallel(csv: string, choices: AuditChoices, jobs:
         }),
     ),
   );
+  const own = mine.map((i) => [i, auditRow(prepMain, i)] as [number, GalaxyRow]);
+  const results = [own, ...(await pending)];
   const galaxies: GalaxyRow[] = new Array(n);
   for (const part of results) for (const [i, row] of part) galaxies[i] = row;
   return finishAudit(prepMain, galaxies);

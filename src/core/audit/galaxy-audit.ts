@@ -180,11 +180,13 @@ export function auditGalaxy(ctx: AuditContext, g: GalaxyInput, index: number): G
       verdict_cv: verdictFor(medCv, choices.epsRef),
     };
   }
-  // Redshift checks: the same draws with z fixed at the alternative solution and at the lower bound.
+  // Redshift checks, for the attribution of a strained or over-budget headline verdict: the same
+  // draws with z fixed at the alternative solution and at the lower bound of the interval.
   const redshiftChecks: GalaxyAudit['redshift_checks'] = [];
   const fixedChecks: [number, 'z_alt' | 'z_lo', boolean][] = [];
-  if (g.zAlt !== undefined) fixedChecks.push([g.zAlt, 'z_alt', true]);
-  if (g.zLo !== undefined && g.zLo < g.z) fixedChecks.push([Math.max(g.zLo, 0.05), 'z_lo', false]);
+  const needsAttribution = imfResults[headline].verdict !== 'within budget';
+  if (needsAttribution && g.zAlt !== undefined) fixedChecks.push([g.zAlt, 'z_alt', true]);
+  if (needsAttribution && g.zLo !== undefined && g.zLo < g.z) fixedChecks.push([Math.max(g.zLo, 0.05), 'z_lo', false]);
   const headTable = tableOf(headline);
   for (const [zf, kind, isAlt] of fixedChecks) {
     const df = drawGalaxy(g, Math.min(n, 2000), seed, halo.background, { z: zf, alt: isAlt });

@@ -15,6 +15,9 @@ import type { GalaxyInput } from './sample.js';
 interface FastBackground {
   luminosityDistanceMpc(z: number): number;
   ageGyr(z: number): number;
+  /** ln D_L [Mpc] and ln t [Gyr] from x = ln(1+z), without the exp/log round trip. */
+  lnDlAt(x: number): number;
+  lnAgeAt(x: number): number;
 }
 const fastCache = new WeakMap<Background, FastBackground>();
 function fast(bg: Background): FastBackground {
@@ -31,15 +34,18 @@ function fast(bg: Background): FastBackground {
     ld[i] = Math.log(bg.luminosityDistanceMpc(z));
     la[i] = Math.log(bg.ageGyr(z));
   }
-  const lookup = (tab: Float64Array, z: number): number => {
-    const t = (Math.log1p(z) - x0) / h;
-    const i = Math.min(Math.floor(t), n - 2);
+  const lnAt = (tab: Float64Array, x: number): number => {
+    const t = (x - x0) / h;
+    const i = Math.min(Math.max(Math.floor(t), 0), n - 2);
     const u = t - i;
-    return Math.exp(tab[i] + u * (tab[i + 1] - tab[i]));
+    return tab[i] + u * (tab[i + 1] - tab[i]);
   };
+  const inRange = (z: number): boolean => z >= 0.01 && z <= 31;
   f = {
-    luminosityDistanceMpc: (z) => (z < 0.01 || z > 31 ? bg.luminosityDistanceMpc(z) : lookup(ld, z)),
-    ageGyr: (z) => (z < 0.01 || z > 31 ? bg.ageGyr(z) : lookup(la, z)),
+    luminosityDistanceMpc: (z) => (inRange(z) ? Math.exp(lnAt(ld, Math.log1p(z))) : bg.luminosityDistanceMpc(z)),
+    ageGyr: (z) => (inRange(z) ? Math.exp(lnAt(la, Math.log1p(z))) : bg.ageGyr(z)),
+    lnDlAt: (x) => (x >= x0 && x <= x1 ? lnAt(ld, x) : Math.log(bg.luminosityDistanceMpc(Math.expm1(x)))),
+    lnAgeAt: (x) => (x >= x0 && x <= x1 ? lnAt(la, x) : Math.log(bg.ageGyr(Math.expm1(x)))),
   };
   fastCache.set(bg, f);
   return f;
@@ -119,14 +125,15 @@ export function drawGalaxy(g: GalaxyInput, n: number, seed: number, bgFull: Back
     }
     z[k] = zk;
     alt[k] = isAlt ? 1 : 0;
-    const tMax = bg.ageGyr(zk) * 1e3;
-    const la = l0 + uAge * (Math.log10(tMax) - l0);
+    const x = Math.log1p(zk);
+    const log10TMax = bg.lnAgeAt(x) / Math.LN10 + 3; // Myr
+    const la = l0 + uAge * (log10TMax - l0);
     lAge[k] = la;
     age[k] = 10 ** la;
     if (g.log10Mstar !== undefined) {
       let m = g.log10Mstar + gMass * g.log10MstarErr;
       if (isAlt && g.log10MstarAlt !== undefined) m = g.log10MstarAlt + gMass * g.log10MstarErr;
-      else if (zk !== g.z) m += 2 * Math.log10(bg.luminosityDistanceMpc(zk) / dl0) - Math.log10((1 + zk) / (1 + g.z));
+      else if (zk !== g.z) m += (2 * (bg.lnDlAt(x) - Math.log(dl0)) - (x - Math.log1p(g.z))) / Math.LN10;
       lM[k] = m;
       lL[k] = Number.NaN;
       lam[k] = Number.NaN;
@@ -143,12 +150,11 @@ export function drawGalaxy(g: GalaxyInput, n: number, seed: number, bgFull: Back
       }
       const m = mApp + gMag * g.magErr;
       // log10 L_ν = log10(4π D_L²) − 0.4 (m + 48.60) − log10(1+z)  (photometry.ts, in logarithms)
-      const dl = bg.luminosityDistanceMpc(zk);
-      let l = FOUR_PI_MPC2 + 2 * Math.log10(dl) - 0.4 * (m + AB_ZERO_POINT) - Math.log10(1 + zk);
+      let l = FOUR_PI_MPC2 + (2 * bg.lnDlAt(x) - x) / Math.LN10 - 0.4 * (m + AB_ZERO_POINT);
       if (g.beta !== undefined) l += (0.4 * meurerA1600(g.beta + gBeta * g.betaErr) * calzettiK(rest)) / k016;
       lL[k] = l;
       lam[k] = rest;
-      lLam[k] = lObs - Math.log10(1 + zk);
+      lLam[k] = lObs - x / Math.LN10;
     }
   }
   return { n, z, ageMyr: age, log10AgeMyr: lAge, log10LambdaRestUm: lLam, alt, log10Lnu: lL, lambdaRestUm: lam, log10MassRef: lM, excluded };
