@@ -84,7 +84,7 @@ report('population tables, 5 IMFs × 4 SFHs × 80 ages × 20 λ (cold)', time(()
   cache = makePopulationCache();
   for (const i of imfs) for (const s of sfhs) cache.table(i, 10, s);
 }, 3), '≤ 200 ms');
-report('population tables at the issue’s size, 5 IMFs × 4 SFHs × 100 ages × 24 λ (cold)', time(() => {
+report('population tables at the target size, 5 IMFs × 4 SFHs × 100 ages × 24 λ (cold)', time(() => {
   const c2 = makePopulationCache();
   for (const i of imfs) for (const s of sfhs) makeMassToLightTable(c2.population(i, 10), s, 100, 24);
 }, 3), '≤ 200 ms');
@@ -117,7 +117,7 @@ const aTimes = aSizes.map((n) => time(() => runAudit(sample(n), choices), 1));
 aSizes.forEach((n, i) => report(`audit (in process): ${n} galaxies × 20000 draws × 4 IMFs`, aTimes[i], '—'));
 const perGal = (aTimes[2] - aTimes[1]) / (aSizes[2] - aSizes[1]);
 console.log(`   cost ∝ N^${slope(aSizes, aTimes).toFixed(2)} (set-up included); marginal ${perGal.toFixed(1)} ms per galaxy`);
-// The issue's case, measured as a user runs it: the CLI on a 1000-row file (default --jobs: the cores).
+// The large-sample target, measured as a user runs it: the CLI on a 1000-row file (default --jobs: the cores).
 {
   const dir = mkdtempSync(join(tmpdir(), 'ba-bench-'));
   const file = join(dir, 'sample-1000.csv');

@@ -9,7 +9,7 @@ describe('background against astropy (independent implementation, test/fixtures/
   for (const c of fixture.cases) {
     const bg = makeBackground({ ...base, ...c.params } as CosmologyParams);
     it(`${c.name}: ages, distances and volumes agree with astropy ${fixture.meta.version} to 1e-4 relative`, () => {
-      // Tolerance 1e-4: the issue's requirement; both sides integrate to ~1e-8, so this is generous.
+      // Tolerance 1e-4: the project's accuracy target for the background; both sides integrate to ~1e-8.
       for (const r of c.rows) {
         expect(rel(bg.ageGyr(r.z), r.age_gyr)).toBeLessThan(1e-4);
         if (r.z > 0) {
