@@ -79,7 +79,7 @@ export function makeCeilingTable(halo: HaloModel, areaArcmin2: number, quantile:
     countsCache.set(jc, out);
     return out;
   };
-  let target = -Math.log(quantile);
+  const target = -Math.log(quantile);
   /** log10 M where an increasing CDF sampled at the mass nodes crosses q. */
   const crossing = (cdf: (i: number) => number): number => {
     let prev = cdf(0);
@@ -94,17 +94,18 @@ export function makeCeilingTable(halo: HaloModel, areaArcmin2: number, quantile:
     }
     return lm[nm - 1];
   };
-  const poissonLogM = (jc: number): number => {
+  /** log10 M where Φ = exp(−N(>M)) reaches the quantile whose −ln q is `t`. */
+  const poissonLogM = (jc: number, t = target): number => {
     const N = countsAt(jc);
     // Φ = exp(−N); interpolate log N linearly in log M between the bracketing nodes.
     let i = 0;
-    while (i < nm - 1 && N[i + 1] > target) i++;
+    while (i < nm - 1 && N[i + 1] > t) i++;
     if (i >= nm - 1) return lm[nm - 1];
-    if (N[0] <= target) return lm[0];
+    if (N[0] <= t) return lm[0];
     const l0 = Math.log(N[i]);
     const l1 = Math.log(Math.max(N[i + 1], 1e-300));
-    const t = (Math.log(target) - l0) / (l1 - l0);
-    return lm[i] + t * (lm[i + 1] - lm[i]);
+    const u = (Math.log(t) - l0) / (l1 - l0);
+    return lm[i] + u * (lm[i + 1] - lm[i]);
   };
   const gh = gaussLegendre(48);
   const gNodes = Array.from(gh.x, (x) => 8 * x);
@@ -144,7 +145,7 @@ export function makeCeilingTable(halo: HaloModel, areaArcmin2: number, quantile:
       return v;
     };
   };
-  const poissonCached = nodeArray(poissonLogM);
+  const poissonCached = nodeArray((jc) => poissonLogM(jc));
   const cvArrays = new Map<number, (jc: number) => number>();
   const cvFor = (sigmaDm: number): ((jc: number) => number) => {
     let f = cvArrays.get(sigmaDm);
@@ -162,13 +163,8 @@ export function makeCeilingTable(halo: HaloModel, areaArcmin2: number, quantile:
     haloMassAtQuantile: (z) => interp(z, poissonCached),
     haloMassAt: (z, q2) => {
       if (!(q2 > 0 && q2 < 1)) throw new RangeError(`quantile must lie strictly between 0 and 1 (got ${q2})`);
-      const keep = target;
-      target = -Math.log(q2);
-      try {
-        return interp(z, poissonLogM);
-      } finally {
-        target = keep;
-      }
+      const t = -Math.log(q2);
+      return interp(z, (jc) => poissonLogM(jc, t));
     },
     haloMassAtQuantileCv: (z, sigmaDm) => interp(z, cvFor(sigmaDm)),
     log10HaloMassAtQuantile: (z) => interpLog(z, poissonCached),

@@ -1,7 +1,5 @@
-import { quantileSorted } from '../numeric/quantile.js';
 import { quantilesBySelection } from '../numeric/select.js';
 import type { HaloModel } from '../halos/halo-model.js';
-import { biasSmt01 } from '../halos/bias.js';
 import type { PopulationCache } from '../stars/population-cache.js';
 import type { MassToLightTable } from '../stars/mass-to-light.js';
 import { isTopHeavy } from '../stars/imf-presets.js';
@@ -63,29 +61,38 @@ export interface AuditContext {
   sigmaDmFor(surveyName: string | undefined, z: number): number;
 }
 
-/** log10 M⋆ of draw k under one IMF (table = that IMF's M/L table, ref = the imf_ref table for reported masses). */
-function log10MassForImf(g: GalaxyInput, d: GalaxyDraws, table: MassToLightTable, ref: MassToLightTable | undefined, k: number): number {
-  if (g.log10Mstar !== undefined) {
-    return d.log10MassRef[k] + table.logMassToLight(d.ageMyr[k], RESCALE_REST_UM) - ref!.logMassToLight(d.ageMyr[k], RESCALE_REST_UM);
-  }
-  return d.log10Lnu[k] + table.logMassToLight(d.ageMyr[k], d.lambdaRestUm[k]);
-}
-
 const LOG_RESCALE = Math.log10(RESCALE_REST_UM);
 
-/** Grid positions of every valid draw in the (shared) M/L table grid, computed once for all IMFs. */
-function drawPositions(g: GalaxyInput, d: GalaxyDraws, table: MassToLightTable, valid: readonly number[]): { x: Float64Array; y: Float64Array } {
-  const x = new Float64Array(valid.length);
-  const y = new Float64Array(valid.length);
-  for (let i = 0; i < valid.length; i++) {
+/**
+ * log10 M⋆ of the draws at `valid` under each table: M/L looked up at each draw's (age, rest λ) — the
+ * same grid position for every IMF — on the dust-corrected L_ν, or, for a reported mass, the mass
+ * rescaled from imf_ref at rest RESCALE_REST_UM (the same light).
+ */
+function drawMasses(g: GalaxyInput, d: GalaxyDraws, valid: readonly number[], tables: readonly MassToLightTable[], ref: MassToLightTable | undefined): Float64Array[] {
+  const nv = valid.length;
+  const x = new Float64Array(nv);
+  const y = new Float64Array(nv);
+  const base = new Float64Array(nv);
+  for (let i = 0; i < nv; i++) {
     const k = valid[i];
-    const [a, b] = table.gridPositionLog(d.log10AgeMyr[k], g.log10Mstar !== undefined ? LOG_RESCALE : d.log10LambdaRestUm[k]);
+    const [a, b] = tables[0].gridPositionLog(d.log10AgeMyr[k], g.log10Mstar !== undefined ? LOG_RESCALE : d.log10LambdaRestUm[k]);
     x[i] = a;
     y[i] = b;
+    base[i] = g.log10Mstar !== undefined ? d.log10MassRef[k] - ref!.logMassToLightAt(a, b) : d.log10Lnu[k];
   }
-  return { x, y };
+  return tables.map((t) => {
+    const out = new Float64Array(nv);
+    for (let i = 0; i < nv; i++) out[i] = base[i] + t.logMassToLightAt(x[i], y[i]);
+    return out;
+  });
 }
 
+/** Indices of the draws whose band fell inside the model's rest range (all, for a reported mass). */
+function validDraws(g: GalaxyInput, d: GalaxyDraws): number[] {
+  const valid: number[] = [];
+  for (let k = 0; k < d.n; k++) if (g.log10Mstar !== undefined || Number.isFinite(d.log10Lnu[k])) valid.push(k);
+  return valid;
+}
 
 export function auditGalaxy(ctx: AuditContext, g: GalaxyInput, index: number): GalaxyAudit {
   const { choices, halo } = ctx;
@@ -96,8 +103,7 @@ export function auditGalaxy(ctx: AuditContext, g: GalaxyInput, index: number): G
   const ceil = ctx.ceilingFor(g.survey);
   const sigmaDm = ctx.sigmaDmFor(g.survey, g.z);
   const notes: string[] = [];
-  const valid: number[] = [];
-  for (let k = 0; k < n; k++) if (g.log10Mstar !== undefined || Number.isFinite(d.log10Lnu[k])) valid.push(k);
+  const valid = validDraws(g, d);
   if (d.excluded) notes.push(`${d.excluded} of ${n} draws put the observed band outside the model's rest range (Lyman-α–1 μm) and were left out`);
   if (valid.length < Math.max(20, 0.01 * n)) throw new RangeError(`row ${g.row} (${g.id}): almost every redshift draw puts the band outside the model's rest range (Lyman-α–1 μm)`);
   if (g.log10Mstar !== undefined && g.zAlt !== undefined && g.log10MstarAlt === undefined) {
@@ -115,36 +121,29 @@ export function auditGalaxy(ctx: AuditContext, g: GalaxyInput, index: number): G
   }
   const headline = g.imfRef && choices.imfs.includes(g.imfRef) ? g.imfRef : choices.imfs[0];
   const imfs = g.imfRef && !choices.imfs.includes(g.imfRef) ? [g.imfRef, ...choices.imfs] : [...choices.imfs];
-  const hMed = halo.growth.d(g.z);
   const imfResults: Record<string, ImfResult> = {};
   let eddington = { slope_alpha: 0, sigma_dex: 0, shift_dex: 0, method: '' };
   let headlineLogM = Number.NaN;
   const tableOf = (imf: string): MassToLightTable => ctx.cache.table(imf, g.z, ctx.sfh);
   const refTable = g.imfRef ? tableOf(g.imfRef) : undefined;
-  const posn = drawPositions(g, d, tableOf(imfs[0]), valid);
-  const refAt = new Float64Array(nv);
-  if (refTable) for (let i = 0; i < nv; i++) refAt[i] = refTable.logMassToLightAt(posn.x[i], posn.y[i]);
-  const base = new Float64Array(nv);
-  for (let i = 0; i < nv; i++) base[i] = g.log10Mstar !== undefined ? d.log10MassRef[valid[i]] - refAt[i] : d.log10Lnu[valid[i]];
-  for (const imf of imfs) {
-    const tab = tableOf(imf);
+  const masses = drawMasses(g, d, valid, imfs.map(tableOf), refTable);
+  for (const [m, imf] of imfs.entries()) {
     // Everything in log10: quantiles commute with the monotonic map, so no power of ten per draw.
-    const lm = new Float64Array(nv);
+    const lm = masses[m];
     const leps = new Float64Array(nv);
     const lepsCv = new Float64Array(nv);
     let over = 0;
     let strained = 0;
     const lRef = Math.log10(choices.epsRef);
     for (let i = 0; i < nv; i++) {
-      const v = base[i] + tab.logMassToLightAt(posn.x[i], posn.y[i]);
-      lm[i] = v;
+      const v = lm[i];
       const e = v - logCeil[i];
       leps[i] = e;
       lepsCv[i] = v - logCeilCv[i];
       if (e > 0) over++;
       if (e > lRef) strained++;
     }
-    const [lm16, lmMed, lm84] = quantilesBySelection(lm.slice(), [0.16, 0.5, 0.84]);
+    const [lm16, lmMed, lm84] = quantilesBySelection(lm, [0.16, 0.5, 0.84]);
     const [le05, leMed, le95] = quantilesBySelection(leps, [0.05, 0.5, 0.95]);
     const med = 10 ** leMed;
     const medCv = 10 ** quantilesBySelection(lepsCv, [0.5])[0];
@@ -187,25 +186,21 @@ export function auditGalaxy(ctx: AuditContext, g: GalaxyInput, index: number): G
   const needsAttribution = imfResults[headline].verdict !== 'within budget';
   if (needsAttribution && g.zAlt !== undefined) fixedChecks.push([g.zAlt, 'z_alt', true]);
   if (needsAttribution && g.zLo !== undefined && g.zLo < g.z) fixedChecks.push([Math.max(g.zLo, 0.05), 'z_lo', false]);
-  const headTable = tableOf(headline);
   for (const [zf, kind, isAlt] of fixedChecks) {
     const df = drawGalaxy(g, Math.min(n, 2000), seed, halo.background, { z: zf, alt: isAlt });
-    const eps: number[] = [];
-    const lc = lfb + ceil.log10HaloMassAtQuantile(zf);
-    for (let k = 0; k < df.n; k++) {
-      if (g.log10Mstar === undefined && !Number.isFinite(df.log10Lnu[k])) continue;
-      eps.push(10 ** (log10MassForImf(g, df, headTable, refTable, k) - lc));
-    }
-    if (!eps.length) {
+    const okDraws = validDraws(g, df);
+    if (!okDraws.length) {
       notes.push(`at ${kind} = ${zf} the band falls outside the model's rest range; that solution was not evaluated`);
       continue;
     }
-    const med = quantileSorted(Float64Array.from(eps).sort(), 0.5);
+    const lc = lfb + ceil.log10HaloMassAtQuantile(zf);
+    const eps = drawMasses(g, df, okDraws, [tableOf(headline)], refTable)[0].map((v) => 10 ** (v - lc));
+    const med = quantilesBySelection(eps, [0.5])[0];
     redshiftChecks.push({ z: zf, kind, eps_required_median: med, verdict: verdictFor(med, choices.epsRef) });
   }
   const h = imfResults[headline];
   const attribution: Attribution[] = [];
-  if (h.verdict !== 'within budget') {
+  if (needsAttribution) {
     const cleared = imfs.filter((i) => imfResults[i].verdict === 'within budget');
     if (!cleared.length) attribution.push('holds under every IMF');
     if (cleared.some((i) => isTopHeavy(i))) attribution.push('IMF-driven');
@@ -222,7 +217,6 @@ export function auditGalaxy(ctx: AuditContext, g: GalaxyInput, index: number): G
     timeBudget = { formation_z: choices.formationZ, sfr_needed_msun_yr: sfr, inflow_max_msun_yr: inflow, ratio: sfr / inflow };
   } else notes.push(`z = ${g.z} is not below the formation redshift ${choices.formationZ}: no time budget`);
   const [s0, s1] = ceil.sliceLimits(g.z);
-  const nuC = halo.deltaC(g.z) / (halo.table.sigma0(mCeil) * hMed);
   return {
     headline_imf: headline,
     verdict: h.verdict,
@@ -235,7 +229,7 @@ export function auditGalaxy(ctx: AuditContext, g: GalaxyInput, index: number): G
       halo_mass_at_quantile_cv_msun: ceil.haloMassAtQuantileCv(g.z, sigmaDm),
       stellar_ceiling_msun: fb * mCeil,
       sigma_dm: sigmaDm,
-      bias_smt01: biasSmt01(nuC, halo.deltaC(g.z)),
+      bias_smt01: halo.bias(mCeil, g.z, 'smt01'),
     },
     eddington,
     time_budget: timeBudget,

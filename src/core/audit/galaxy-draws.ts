@@ -1,9 +1,9 @@
 import type { Background } from '../cosmology/background.js';
-import { AB_ZERO_POINT, LYMAN_ALPHA_UM, MPC_CM } from '../constants.js';
-import { calzettiK, meurerA1600 } from '../stars/dust.js';
+import { LYMAN_ALPHA_UM } from '../constants.js';
+import { attenuationFromBeta } from '../stars/dust.js';
 import { ML_AGE_MIN_MYR } from '../stars/mass-to-light.js';
 import { MUV_REST_UM } from '../stars/mass-estimate.js';
-import { apparentFromAbsolute, MODEL_LAMBDA_MAX_UM } from '../stars/photometry.js';
+import { apparentFromAbsolute, log10LnuFromApparent, MODEL_LAMBDA_MAX_UM } from '../stars/photometry.js';
 import { makeRandom } from './random.js';
 import type { GalaxyInput } from './sample.js';
 
@@ -62,14 +62,11 @@ function fast(bg: Background): FastBackground {
 export interface GalaxyDraws {
   readonly n: number;
   readonly z: Float64Array;
-  readonly ageMyr: Float64Array;
-  /** log10 of ageMyr and of lambdaRestUm (NaN where excluded), for table lookups without logarithms. */
+  /** log10 of the population age (Myr) and of the rest wavelength (μm; NaN where excluded). */
   readonly log10AgeMyr: Float64Array;
   readonly log10LambdaRestUm: Float64Array;
-  readonly alt: Uint8Array;
-  /** For brightness rows: log10 of the dust-corrected L_ν and the rest wavelength; NaN = excluded draw. */
+  /** For brightness rows: log10 of the dust-corrected L_ν; NaN = excluded draw. */
   readonly log10Lnu: Float64Array;
-  readonly lambdaRestUm: Float64Array;
   /** For reported-mass rows: log10 M* (under imf_ref) before IMF rescaling. */
   readonly log10MassRef: Float64Array;
   /** Number of draws whose band fell outside the model's rest range (excluded). */
@@ -80,15 +77,10 @@ export function drawGalaxy(g: GalaxyInput, n: number, seed: number, bgFull: Back
   const rnd = makeRandom(seed);
   const bg = fast(bgFull);
   const z = new Float64Array(n);
-  const age = new Float64Array(n);
-  const alt = new Uint8Array(n);
   const lL = new Float64Array(n);
-  const lam = new Float64Array(n);
   const lM = new Float64Array(n);
   const lAge = new Float64Array(n);
   const lLam = new Float64Array(n);
-  const k016 = calzettiK(0.16);
-  const FOUR_PI_MPC2 = Math.log10(4 * Math.PI * MPC_CM * MPC_CM);
   const sLo = g.zLo !== undefined ? g.z - g.zLo : 0;
   const sHi = g.zHi !== undefined ? g.zHi - g.z : 0;
   const fracWidth = (0.5 * (sLo + sHi)) / (1 + g.z);
@@ -124,38 +116,31 @@ export function drawGalaxy(g: GalaxyInput, n: number, seed: number, bgFull: Back
       zk = Math.max(zk, 0.05);
     }
     z[k] = zk;
-    alt[k] = isAlt ? 1 : 0;
     const x = Math.log1p(zk);
     const log10TMax = bg.lnAgeAt(x) / Math.LN10 + 3; // Myr
     const la = l0 + uAge * (log10TMax - l0);
     lAge[k] = la;
-    age[k] = 10 ** la;
     if (g.log10Mstar !== undefined) {
       let m = g.log10Mstar + gMass * g.log10MstarErr;
       if (isAlt && g.log10MstarAlt !== undefined) m = g.log10MstarAlt + gMass * g.log10MstarErr;
       else if (zk !== g.z) m += (2 * (bg.lnDlAt(x) - Math.log(dl0)) - (x - Math.log1p(g.z))) / Math.LN10;
       lM[k] = m;
       lL[k] = Number.NaN;
-      lam[k] = Number.NaN;
       lLam[k] = Number.NaN;
     } else {
       const rest = lambdaObs / (1 + zk);
       lM[k] = Number.NaN;
       if (rest < LYMAN_ALPHA_UM || rest > MODEL_LAMBDA_MAX_UM) {
         lL[k] = Number.NaN;
-        lam[k] = Number.NaN;
         lLam[k] = Number.NaN;
         excluded++;
         continue;
       }
-      const m = mApp + gMag * g.magErr;
-      // log10 L_ν = log10(4π D_L²) − 0.4 (m + 48.60) − log10(1+z)  (photometry.ts, in logarithms)
-      let l = FOUR_PI_MPC2 + (2 * bg.lnDlAt(x) - x) / Math.LN10 - 0.4 * (m + AB_ZERO_POINT);
-      if (g.beta !== undefined) l += (0.4 * meurerA1600(g.beta + gBeta * g.betaErr) * calzettiK(rest)) / k016;
+      let l = log10LnuFromApparent(mApp + gMag * g.magErr, bg.lnDlAt(x), x);
+      if (g.beta !== undefined) l += 0.4 * attenuationFromBeta(g.beta + gBeta * g.betaErr, rest);
       lL[k] = l;
-      lam[k] = rest;
       lLam[k] = lObs - x / Math.LN10;
     }
   }
-  return { n, z, ageMyr: age, log10AgeMyr: lAge, log10LambdaRestUm: lLam, alt, log10Lnu: lL, lambdaRestUm: lam, log10MassRef: lM, excluded };
+  return { n, z, log10AgeMyr: lAge, log10LambdaRestUm: lLam, log10Lnu: lL, log10MassRef: lM, excluded };
 }

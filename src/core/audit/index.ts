@@ -1,5 +1,5 @@
-export { runAudit, prepareAudit, auditRow, finishAudit, AuditCancelled, AUDIT_CAUTION } from './run-audit.js';
-export type { AuditResult, GalaxyRow, AuditHooks, PreparedAudit } from './run-audit.js';
+export { runAudit, prepareAudit, auditRow, finishAudit, AUDIT_CAUTION } from './run-audit.js';
+export type { AuditResult, GalaxyRow, PreparedAudit } from './run-audit.js';
 export { validateRecord, TOOL_NAME, TOOL_VERSION, RECORD_FORMAT } from './record.js';
 export type { AuditRecord } from './record.js';
 export type { AuditChoices } from './choices.js';

@@ -35,18 +35,6 @@ export interface AuditResult {
   readonly record: AuditRecord;
 }
 
-export interface AuditHooks {
-  onProgress?(done: number, total: number): void;
-  isCancelled?(): boolean;
-}
-
-export class AuditCancelled extends Error {
-  constructor() {
-    super('audit cancelled');
-    this.name = 'AuditCancelled';
-  }
-}
-
 const knownImf = (name: string): boolean => {
   if (IMF_NAMES.includes(name)) return true;
   try {
@@ -196,15 +184,9 @@ export function finishAudit(prep: PreparedAudit, galaxies: GalaxyRow[]): AuditRe
   };
 }
 
-export function runAudit(sampleCsv: string, choices: AuditChoices, hooks: AuditHooks = {}): AuditResult {
+/** The whole audit in one call (the CLI; the worker runs the same three steps with progress). */
+export function runAudit(sampleCsv: string, choices: AuditChoices): AuditResult {
   const prep = prepareAudit(sampleCsv, choices);
-  const galaxies: GalaxyRow[] = [];
-  const n = prep.parsed.rows.length;
-  for (let i = 0; i < n; i++) {
-    if (hooks.isCancelled?.()) throw new AuditCancelled();
-    galaxies.push(auditRow(prep, i));
-    hooks.onProgress?.(i + 1, n);
-  }
-  return finishAudit(prep, galaxies);
+  return finishAudit(prep, prep.parsed.rows.map((_, i) => auditRow(prep, i)));
 }
 

@@ -3,5 +3,5 @@ export type { GaussRule } from './gauss-legendre.js';
 export { cubicSpline, splineEval, splineDeriv } from './cubic-spline.js';
 export type { CubicSpline } from './cubic-spline.js';
 export { findRoot } from './root-find.js';
-export { quantileSorted, sortedCopy, fractionAbove } from './quantile.js';
+export { quantileSorted } from './quantile.js';
 export { selectKth, quantilesBySelection } from './select.js';

@@ -8,16 +8,3 @@ export function quantileSorted(sorted: ArrayLike<number>, q: number): number {
   const hi = Math.min(lo + 1, n - 1);
   return sorted[lo] + (h - lo) * (sorted[hi] - sorted[lo]);
 }
-
-export function sortedCopy(values: ArrayLike<number>): Float64Array {
-  const a = Float64Array.from(values as ArrayLike<number>);
-  a.sort();
-  return a;
-}
-
-/** Fraction of values strictly above a threshold. */
-export function fractionAbove(values: ArrayLike<number>, threshold: number): number {
-  let c = 0;
-  for (let i = 0; i < values.length; i++) if (values[i] > threshold) c++;
-  return values.length ? c / values.length : Number.NaN;
-}

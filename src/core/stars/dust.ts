@@ -15,6 +15,14 @@ export function meurerA1600(beta: number): number {
   return Math.max(0, 4.43 + 1.99 * beta);
 }
 
+const K_1600 = calzettiK(0.16);
+const K_V = calzettiK(0.55);
+
+/** A_λ from the UV slope: A_1600(β) (Meurer et al. 1999) carried to λ with the Calzetti curve, mag. */
+export function attenuationFromBeta(beta: number, lambdaUm: number): number {
+  return (meurerA1600(beta) * calzettiK(lambdaUm)) / K_1600;
+}
+
 export type DustSpec = { readonly kind: 'none' } | { readonly kind: 'beta'; readonly beta: number } | { readonly kind: 'av'; readonly av: number };
 
 /**
@@ -23,6 +31,6 @@ export type DustSpec = { readonly kind: 'none' } | { readonly kind: 'beta'; read
  */
 export function attenuationMag(dust: DustSpec, lambdaUm: number): number {
   if (dust.kind === 'none') return 0;
-  if (dust.kind === 'beta') return (meurerA1600(dust.beta) * calzettiK(lambdaUm)) / calzettiK(0.16);
-  return (dust.av * calzettiK(lambdaUm)) / calzettiK(0.55);
+  if (dust.kind === 'beta') return attenuationFromBeta(dust.beta, lambdaUm);
+  return (dust.av * calzettiK(lambdaUm)) / K_V;
 }

@@ -29,6 +29,7 @@ export type { PopulationCache } from './population-cache.js';
 export {
   abToFnu,
   lnuFromApparent,
+  log10LnuFromApparent,
   lnuFromAbsolute,
   absoluteFromApparent,
   apparentFromAbsolute,
@@ -36,7 +37,7 @@ export {
   MODEL_LAMBDA_MIN_UM,
   MODEL_LAMBDA_MAX_UM,
 } from './photometry.js';
-export { calzettiK, meurerA1600, attenuationMag } from './dust.js';
+export { calzettiK, meurerA1600, attenuationMag, attenuationFromBeta } from './dust.js';
 export type { DustSpec } from './dust.js';
 export { estimateMass, rescaleMass, observedLnu, intrinsicLnu, allowedAgesMyr, MUV_REST_UM } from './mass-estimate.js';
 export type { Brightness, MassEstimate } from './mass-estimate.js';

@@ -9,10 +9,19 @@ export function abToFnu(mAB: number): number {
   return 10 ** (-0.4 * (mAB + AB_ZERO_POINT));
 }
 
-/** Rest-frame L_ν from an observed AB magnitude: L_ν = 4π D_L² f_ν / (1+z) (bandwidth term), erg s⁻¹ Hz⁻¹. */
+const LOG10_4PI_MPC2 = Math.log10(4 * Math.PI * MPC_CM * MPC_CM);
+
+/**
+ * log10 of the rest-frame L_ν from an observed AB magnitude, L_ν = 4π D_L² f_ν / (1+z) (bandwidth term),
+ * from ln D_L [Mpc] and ln(1+z): log10(4π D_L²) − 0.4 (m + 48.60) − log10(1+z). erg s⁻¹ Hz⁻¹.
+ */
+export function log10LnuFromApparent(mAB: number, lnDlMpc: number, ln1pz: number): number {
+  return LOG10_4PI_MPC2 + (2 * lnDlMpc - ln1pz) / Math.LN10 - 0.4 * (mAB + AB_ZERO_POINT);
+}
+
+/** Rest-frame L_ν from an observed AB magnitude (log10LnuFromApparent), erg s⁻¹ Hz⁻¹. */
 export function lnuFromApparent(mAB: number, luminosityDistanceMpc: number, z: number): number {
-  const dl = luminosityDistanceMpc * MPC_CM;
-  return (4 * Math.PI * dl * dl * abToFnu(mAB)) / (1 + z);
+  return 10 ** log10LnuFromApparent(mAB, Math.log(luminosityDistanceMpc), Math.log1p(z));
 }
 
 /** L_ν from an absolute AB magnitude (flux at 10 pc): 4π(10 pc)² 10^{−0.4(M + 48.60)}, erg s⁻¹ Hz⁻¹. */
