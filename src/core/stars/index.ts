@@ -21,7 +21,7 @@ export { blackbodyLnu } from './blackbody.js';
 export { cumulativeYoungerThan, currentSfrPerMassFormed, parseSfh, validateSfh, SFH_NAMES } from './sfh.js';
 export type { Sfh } from './sfh.js';
 export { makePopulation } from './population.js';
-export type { Population, PopulationOptions } from './population.js';
+export type { Population, PopulationOptions, Phases } from './population.js';
 export { makeMassToLightTable, ML_AGE_MIN_MYR, ML_AGE_MAX_MYR } from './mass-to-light.js';
 export type { MassToLightTable } from './mass-to-light.js';
 export { makePopulationCache } from './population-cache.js';

@@ -1,6 +1,6 @@
 import { MODEL_LAMBDA_MAX_UM, MODEL_LAMBDA_MIN_UM } from './photometry.js';
-import { cumulativeYoungerThan, type Sfh } from './sfh.js';
-import { POST_MS_DURATION, type Population } from './population.js';
+import type { Sfh } from './sfh.js';
+import type { Population } from './population.js';
 
 /**
  * Tables of log10 L_ν (erg s⁻¹ Hz⁻¹ per Msun formed) and log10 of the surviving fraction over
@@ -19,11 +19,9 @@ export interface MassToLightTable {
   readonly logSurv: Float64Array;
   /** log10(surviving Msun per erg s⁻¹ Hz⁻¹) at (age Myr, λ μm). */
   logMassToLight(ageMyr: number, lambdaUm: number): number;
-  /** Fractional grid position (x = age index, y = λ index) shared by every table on the same grid. */
-  gridPosition(ageMyr: number, lambdaUm: number): [number, number];
-  /** gridPosition from log10 age (Myr) and log10 λ (μm). */
+  /** Fractional grid position (x = age index, y = λ index) from log10 age (Myr) and log10 λ (μm), shared by every table on the same grid. */
   gridPositionLog(log10AgeMyr: number, log10LambdaUm: number): [number, number];
-  /** logMassToLight at a grid position from gridPosition (the same number, fewer logarithms). */
+  /** logMassToLight at a grid position from gridPositionLog (the same number, fewer logarithms). */
   logMassToLightAt(x: number, y: number): number;
 }
 
@@ -36,31 +34,13 @@ export function makeMassToLightTable(pop: Population, sfh: Sfh, nAge = 80, nLam 
   const ll0 = Math.log10(MODEL_LAMBDA_MIN_UM);
   const ll1 = Math.log10(MODEL_LAMBDA_MAX_UM);
   const lams = Array.from({ length: nLam }, (_, j) => 10 ** (ll0 + ((ll1 - ll0) * j) / (nLam - 1)));
-  const nb = pop.number.length;
-  const perStar = lams.map((l) => {
-    // one synthesis at a fixed age per λ primes the population's per-star cache
-    pop.lnu(sfh, 1, l);
-    return l;
-  });
   const logLnu = new Float64Array(nAge * nLam);
   const logSurv = new Float64Array(nAge);
-  const cMs = new Float64Array(nb);
-  const cEnd = new Float64Array(nb);
   for (let i = 0; i < nAge; i++) {
-    const age = 10 ** (la0 + ((la1 - la0) * i) / (nAge - 1));
-    for (let b = 0; b < nb; b++) {
-      cMs[b] = cumulativeYoungerThan(sfh, pop.tMsMyr[b], age);
-      cEnd[b] = cumulativeYoungerThan(sfh, pop.tMsMyr[b] * (1 + POST_MS_DURATION), age);
-    }
-    let surv = 0;
-    for (let b = 0; b < nb; b++) surv += pop.mass[b] * cEnd[b] + pop.remnant[b] * pop.number[b] * (1 - cEnd[b]);
-    logSurv[i] = Math.log10(surv);
-    for (let j = 0; j < nLam; j++) {
-      const { ms, post } = pop.perStarLnu(perStar[j]);
-      let s = 0;
-      for (let b = 0; b < nb; b++) s += pop.number[b] * (ms[b] * cMs[b] + post[b] * (cEnd[b] - cMs[b]));
-      logLnu[i * nLam + j] = Math.log10(Math.max(s, 1e-300));
-    }
+    // the stellar phases depend on the age only: computed once, then lit at every wavelength
+    const ph = pop.phases(sfh, 10 ** (la0 + ((la1 - la0) * i) / (nAge - 1)));
+    logSurv[i] = Math.log10(pop.survivingAt(ph));
+    for (let j = 0; j < nLam; j++) logLnu[i * nLam + j] = Math.log10(Math.max(pop.lnuAt(ph, lams[j]), 1e-300));
   }
   const fa = (nAge - 1) / (la1 - la0);
   const fl = (nLam - 1) / (ll1 - ll0);
@@ -74,7 +54,6 @@ export function makeMassToLightTable(pop: Population, sfh: Sfh, nAge = 80, nLam 
     logLnu,
     logSurv,
     logMassToLight: (ageMyr, lambdaUm) => at(...pos(ageMyr, lambdaUm)),
-    gridPosition: (ageMyr, lambdaUm) => pos(ageMyr, lambdaUm),
     gridPositionLog: (la, ll) => posLog(la, ll),
     logMassToLightAt: (x, y) => at(x, y),
   };

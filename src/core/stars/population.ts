@@ -1,4 +1,3 @@
-import { LSUN_ERG_S } from '../constants.js';
 import { blackbodyLnu } from './blackbody.js';
 import { imfMass, imfNumber, type Imf } from './imf.js';
 import { mainSequenceLifetimeMyr } from './lifetime.js';
@@ -36,6 +35,12 @@ export const POST_MS_TEFF_K = 4500;
 export const POST_MS_TEFF_MASSIVE_K = 20000;
 export const POST_MS_MASSIVE_MSUN = 15;
 
+/** Per mass bin: fraction of the mass formed that is still on the main sequence (msEnd) or not yet a remnant (postEnd). */
+export interface Phases {
+  readonly msEnd: Float64Array;
+  readonly postEnd: Float64Array;
+}
+
 export interface Population {
   readonly imf: Imf;
   readonly metallicity: number;
@@ -45,6 +50,12 @@ export interface Population {
   readonly mStar: Float64Array;
   readonly tMsMyr: Float64Array;
   readonly remnant: Float64Array;
+  /** C(a) at the end of each bin's main sequence and of its post-main sequence, for one SFH and age. */
+  phases(sfh: Sfh, ageMyr: number): Phases;
+  /** L_ν per Msun formed at λ (μm) for given phases, erg s⁻¹ Hz⁻¹. */
+  lnuAt(phases: Phases, lambdaUm: number): number;
+  /** Stars + remnants per Msun formed for given phases. */
+  survivingAt(phases: Phases): number;
   /** L_ν per Msun formed at rest wavelength λ (μm), erg s⁻¹ Hz⁻¹. */
   lnu(sfh: Sfh, ageMyr: number, lambdaUm: number): number;
   /** Per-bin L_ν of one star in its main-sequence and post-main-sequence phases, erg s⁻¹ Hz⁻¹. */
@@ -104,13 +115,25 @@ export function makePopulation(imf: Imf, opts: PopulationOptions = {}): Populati
     lnuCache.set(lambdaUm, v);
     return v;
   };
-  const integrateLight = (sfh: Sfh, age: number, ms: Float64Array, post: Float64Array): number => {
-    let s = 0;
+  const phases = (sfh: Sfh, age: number): Phases => {
+    const msEnd = new Float64Array(n);
+    const postEnd = new Float64Array(n);
     for (let i = 0; i < n; i++) {
-      const cMs = cumulativeYoungerThan(sfh, tMs[i], age);
-      const cEnd = cumulativeYoungerThan(sfh, tMs[i] * (1 + POST_MS_DURATION), age);
-      s += number[i] * (ms[i] * cMs + post[i] * (cEnd - cMs));
+      msEnd[i] = cumulativeYoungerThan(sfh, tMs[i], age);
+      postEnd[i] = cumulativeYoungerThan(sfh, tMs[i] * (1 + POST_MS_DURATION), age);
     }
+    return { msEnd, postEnd };
+  };
+  /** Σ_bins N [L_MS C(t_MS) + L_post (C(t_MS + t_post) − C(t_MS))]: each phase lit while it lasts. */
+  const lightAt = (p: Phases, ms: Float64Array, post: Float64Array): number => {
+    let s = 0;
+    for (let i = 0; i < n; i++) s += number[i] * (ms[i] * p.msEnd[i] + post[i] * (p.postEnd[i] - p.msEnd[i]));
+    return s;
+  };
+  /** Σ_bins [M C(t_life) + N m_rem (1 − C(t_life))]: living stars plus the remnants of the dead. */
+  const survivingAt = (p: Phases): number => {
+    let s = 0;
+    for (let i = 0; i < n; i++) s += mass[i] * p.postEnd[i] + rem[i] * number[i] * (1 - p.postEnd[i]);
     return s;
   };
   const lbolMs = lMs;
@@ -124,21 +147,17 @@ export function makePopulation(imf: Imf, opts: PopulationOptions = {}): Populati
     tMsMyr: tMs,
     remnant: rem,
     perStarLnu,
+    phases,
+    lnuAt: (p, lambdaUm) => {
+      const { ms, post } = perStarLnu(lambdaUm);
+      return lightAt(p, ms, post);
+    },
+    survivingAt,
     lnu: (sfh, age, lambdaUm) => {
       const { ms, post } = perStarLnu(lambdaUm);
-      return integrateLight(sfh, age, ms, post);
+      return lightAt(phases(sfh, age), ms, post);
     },
-    lbol: (sfh, age) => integrateLight(sfh, age, lbolMs, lbolPost),
-    survivingFraction: (sfh, age) => {
-      let s = 0;
-      for (let i = 0; i < n; i++) {
-        const alive = cumulativeYoungerThan(sfh, tMs[i] * (1 + POST_MS_DURATION), age);
-        s += mass[i] * alive + rem[i] * number[i] * (1 - alive);
-      }
-      return s;
-    },
+    lbol: (sfh, age) => lightAt(phases(sfh, age), lbolMs, lbolPost),
+    survivingFraction: (sfh, age) => survivingAt(phases(sfh, age)),
   };
 }
-
-/** Bolometric luminosity unit conversion, for callers that want erg/s. */
-export const LSUN = LSUN_ERG_S;
