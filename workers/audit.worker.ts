@@ -84,13 +84,7 @@ function curvesFor(req: AuditRequest, prep: ReturnType<typeof prepareAudit>): Ce
     curveCache.set(key, v);
   }
   // copies: the cached arrays stay here, the copies are transferred
-  return {
-    z: v.z.slice(),
-    log10MstarEps1: v.log10MstarEps1.slice(),
-    log10MstarEpsRef: v.log10MstarEpsRef.slice(),
-    log10MstarEps1Q16: v.log10MstarEps1Q16.slice(),
-    log10MstarEps1Q84: v.log10MstarEps1Q84.slice(),
-  };
+  return Object.fromEntries(Object.entries(v).map(([k, a]) => [k, (a as Float64Array).slice()])) as unknown as CeilingCurves;
 }
 
 function respond(req: AuditRequest, prep: ReturnType<typeof prepareAudit>, galaxies: GalaxyRow[], elapsedMs: number): AuditResponse {
@@ -103,6 +97,31 @@ function respond(req: AuditRequest, prep: ReturnType<typeof prepareAudit>, galax
 }
 const tick = (): Promise<void> => new Promise((r) => setTimeout(r, 0));
 
+/**
+ * Audits the rows at `indices` for request `req`. Progress is reported at most every 100 ms and never
+ * awaited; every 50 ms the loop yields so that cancel() or a newer request can stop it.
+ */
+async function auditIndices(req: AuditRequest, prep: ReturnType<typeof prepareAudit>, indices: number[], onProgress?: (done: number) => void): Promise<[number, GalaxyRow][] | 'cancelled'> {
+  current = req.id;
+  const ck = JSON.stringify(req.choices);
+  const out: [number, GalaxyRow][] = [];
+  let lastProgress = performance.now();
+  let lastTick = performance.now();
+  for (let j = 0; j < indices.length; j++) {
+    if (current !== req.id) return 'cancelled';
+    out.push([indices[j], cachedRow(prep, ck, indices[j])]);
+    if (onProgress && performance.now() - lastProgress > 100) {
+      lastProgress = performance.now();
+      void onProgress(j + 1);
+    }
+    if (performance.now() - lastTick > 50) {
+      lastTick = performance.now();
+      await tick();
+    }
+  }
+  return current === req.id ? out : 'cancelled';
+}
+
 function buffers(x: { [k: string]: unknown } | undefined): ArrayBuffer[] {
   if (!x) return [];
   return Object.values(x).filter((v): v is Float64Array => v instanceof Float64Array).map((v) => v.buffer as ArrayBuffer);
@@ -110,55 +129,20 @@ function buffers(x: { [k: string]: unknown } | undefined): ArrayBuffer[] {
 
 export const auditApi = {
   async run(req: AuditRequest, onProgress?: (done: number, total: number) => void): Promise<AuditResponse> {
-    current = req.id;
     const t0 = performance.now();
     const prep = prepareAudit(req.csv, req.choices);
     const n = prep.parsed.rows.length;
-    const galaxies: GalaxyRow[] = [];
-    const ck = JSON.stringify(req.choices);
-    let lastProgress = performance.now();
-    let lastTick = performance.now();
-    for (let i = 0; i < n; i++) {
-      if (current !== req.id) return { id: req.id, status: 'cancelled', elapsedMs: performance.now() - t0 };
-      galaxies.push(cachedRow(prep, ck, i));
-      // progress at most every 100 ms, not awaited: the page never waits on it
-      if (onProgress && performance.now() - lastProgress > 100) {
-        lastProgress = performance.now();
-        void onProgress(i + 1, n);
-      }
-      if (performance.now() - lastTick > 50) {
-        lastTick = performance.now();
-        await tick();
-      }
-    }
-    if (current !== req.id) return { id: req.id, status: 'cancelled', elapsedMs: performance.now() - t0 };
-    return respond(req, prep, galaxies, performance.now() - t0);
+    const rows = await auditIndices(req, prep, Array.from({ length: n }, (_, i) => i), onProgress && ((d) => onProgress(d, n)));
+    if (rows === 'cancelled') return { id: req.id, status: 'cancelled', elapsedMs: performance.now() - t0 };
+    return respond(req, prep, rows.map(([, g]) => g), performance.now() - t0);
   },
   /** Number of data rows the sample parses to (for dealing rows over the pool). */
   rowCount(csv: string, choices: AuditChoices): number {
     return prepareAudit(csv, choices).parsed.rows.length;
   },
   /** Pool member: audits only the rows at `indices` (each row has its own seeded stream). */
-  async runRows(req: AuditRequest, indices: number[], onProgress?: (done: number) => void): Promise<[number, GalaxyRow][] | 'cancelled'> {
-    current = req.id;
-    const prep = prepareAudit(req.csv, req.choices);
-    const out: [number, GalaxyRow][] = [];
-    const ck = JSON.stringify(req.choices);
-    let lastProgress = performance.now();
-    let lastTick = performance.now();
-    for (let j = 0; j < indices.length; j++) {
-      if (current !== req.id) return 'cancelled';
-      out.push([indices[j], cachedRow(prep, ck, indices[j])]);
-      if (onProgress && performance.now() - lastProgress > 100) {
-        lastProgress = performance.now();
-        void onProgress(j + 1);
-      }
-      if (performance.now() - lastTick > 50) {
-        lastTick = performance.now();
-        await tick();
-      }
-    }
-    return current === req.id ? out : 'cancelled';
+  runRows(req: AuditRequest, indices: number[], onProgress?: (done: number) => void): Promise<[number, GalaxyRow][] | 'cancelled'> {
+    return auditIndices(req, prepareAudit(req.csv, req.choices), indices, onProgress);
   },
   /** Pool leader: the sample level, figures and reports from every row's result. */
   finish(req: AuditRequest, galaxies: GalaxyRow[], elapsedMs: number): AuditResponse {

@@ -22,7 +22,6 @@ export class AuditController {
   private api!: Comlink.Remote<AuditApi>;
   private seq = 0;
   private lastGood?: { csv: string; choices: AuditChoices };
-  private pending?: { csv: string; choices: AuditChoices };
   private helpers: { worker: Worker; api: Comlink.Remote<AuditApi> }[] = [];
   state: ControllerState = { status: 'idle', done: 0, total: 0, restarts: 0 };
 
@@ -40,16 +39,25 @@ export class AuditController {
 
   static readonly POOL_MIN_ROWS = 24;
 
+  /** A new worker whose failure (error or unreadable message) restarts the whole set. */
+  private spawn(role: string): { worker: Worker; api: Comlink.Remote<AuditApi> } {
+    const worker = this.makeWorker();
+    worker.addEventListener('error', (e) => {
+      e.preventDefault();
+      this.crashed(`${role} failed (${e.message || 'script error'})`);
+    });
+    worker.addEventListener('messageerror', () => this.crashed(`${role} sent a message that could not be read`));
+    return { worker, api: Comlink.wrap<AuditApi>(worker) };
+  }
+
   private helper(i: number): Comlink.Remote<AuditApi> {
-    while (this.helpers.length <= i) {
-      const worker = this.makeWorker();
-      worker.addEventListener('error', (e) => {
-        e.preventDefault();
-        this.crashed(`a pool worker failed (${e.message || 'script error'})`);
-      });
-      this.helpers.push({ worker, api: Comlink.wrap<AuditApi>(worker) });
-    }
+    while (this.helpers.length <= i) this.helpers.push(this.spawn('a pool worker'));
     return this.helpers[i].api;
+  }
+
+  /** The main worker and the pool helpers. */
+  private all(): { worker: Worker; api: Comlink.Remote<AuditApi> }[] {
+    return [{ worker: this.worker, api: this.api }, ...this.helpers];
   }
 
   private set(s: Partial<ControllerState>): void {
@@ -58,18 +66,11 @@ export class AuditController {
   }
 
   private start(): void {
-    this.worker = this.makeWorker();
-    this.worker.addEventListener('error', (e) => {
-      e.preventDefault();
-      this.crashed(`the computation worker failed (${e.message || 'script error'})`);
-    });
-    this.worker.addEventListener('messageerror', () => this.crashed('the computation worker sent a message that could not be read'));
-    this.api = Comlink.wrap<AuditApi>(this.worker);
+    ({ worker: this.worker, api: this.api } = this.spawn('the computation worker'));
   }
 
   private crashed(why: string): void {
-    this.worker.terminate();
-    for (const h of this.helpers) h.worker.terminate();
+    for (const w of this.all()) w.worker.terminate();
     this.helpers = [];
     this.seq++;
     this.start();
@@ -81,11 +82,7 @@ export class AuditController {
   /** Runs an audit; resolves when this request is answered, superseded or failed. */
   async run(csv: string, choices: AuditChoices, keepMessage = false): Promise<void> {
     const id = ++this.seq;
-    this.pending = { csv, choices };
-    if (this.state.status === 'running') {
-      void this.api.cancel();
-      for (const h of this.helpers) void h.api.cancel();
-    }
+    if (this.state.status === 'running') for (const w of this.all()) void w.api.cancel();
     this.set({ status: 'running', done: 0, total: 0, ...(keepMessage ? {} : { message: undefined }) });
     try {
       if (this.poolSize > 1 && csv.trim().split('\n').length - 1 >= AuditController.POOL_MIN_ROWS) {
@@ -144,8 +141,7 @@ export class AuditController {
   /** Stops the run in flight; the last result stays on the page. */
   cancel(): void {
     this.seq++;
-    void this.api.cancel();
-    for (const h of this.helpers) void h.api.cancel();
+    for (const w of this.all()) void w.api.cancel();
     this.set({ status: this.state.response ? 'done' : 'idle', message: 'run cancelled' });
   }
 
@@ -153,7 +149,7 @@ export class AuditController {
     return this.api.explore(req);
   }
 
-  /** Kills the worker as a crash would (used by the recovery tests and by the page's own watchdog). */
+  /** Kills the worker as a crash would (used by the recovery tests). */
   kill(): void {
     this.crashed('the computation worker was stopped');
   }
@@ -167,12 +163,7 @@ export class AuditController {
     }
   }
 
-  get lastInputs(): { csv: string; choices: AuditChoices } | undefined {
-    return this.pending;
-  }
-
   dispose(): void {
-    this.worker.terminate();
-    for (const h of this.helpers) h.worker.terminate();
+    for (const w of this.all()) w.worker.terminate();
   }
 }
