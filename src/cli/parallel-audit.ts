@@ -1,6 +1,6 @@
 import { availableParallelism } from 'node:os';
 import { Worker, isMainThread, parentPort, workerData } from 'node:worker_threads';
-import { auditRow, finishAudit, prepareAudit, type AuditChoices, type AuditResult, type GalaxyRow } from '../core/audit/index.js';
+import { auditRow, finishAudit, prepareAudit, runAudit, type AuditChoices, type AuditResult, type GalaxyRow } from '../core/audit/index.js';
 
 /**
  * The audit on several cores: rows are dealt round-robin to the main thread and N − 1 worker threads
@@ -28,12 +28,14 @@ export function defaultJobs(rows: number): number {
   return rows < 24 ? 1 : Math.max(1, Math.min(availableParallelism(), Math.ceil(rows / 12)));
 }
 
+/** The audit on `jobs` threads (one: the plain runAudit). */
 export async function runAuditParallel(csv: string, choices: AuditChoices, jobs: number, entry: URL): Promise<AuditResult> {
+  if (jobs <= 1) return runAudit(csv, choices);
   const prepMain = prepareAudit(csv, choices);
   const n = prepMain.parsed.rows.length;
-  if (jobs <= 1 || n < 2) return finishAudit(prepMain, prepMain.parsed.rows.map((_, i) => auditRow(prepMain, i)));
-  const parts: number[][] = Array.from({ length: jobs }, () => []);
-  for (let i = 0; i < n; i++) parts[i % jobs].push(i);
+  const k = Math.max(1, Math.min(jobs, n));
+  const parts: number[][] = Array.from({ length: k }, () => []);
+  for (let i = 0; i < n; i++) parts[i % k].push(i);
   // The main thread takes the first share itself (no extra thread competing for the cores).
   const [mine, ...theirs] = parts;
   const pending = Promise.all(

@@ -4,7 +4,6 @@ import {
   auditMarkdown,
   DEFAULT_IMFS,
   parseSurveys,
-  runAudit,
   validateRecord,
   type AuditChoices,
   type Survey,
@@ -148,7 +147,7 @@ export async function runAssess(argv: string[]): Promise<string> {
   const rowsGuess = csv.split('\n').length - 1;
   const jobs = values.jobs === undefined ? defaultJobs(rowsGuess) : num('jobs', values.jobs, { min: 1, max: 64 });
   if (!Number.isInteger(jobs)) throw new CliError(`--jobs must be a whole number (got ${values.jobs})`);
-  const result = jobs > 1 ? await runAuditParallel(csv, choices, jobs, new URL(import.meta.url)) : runAudit(csv, choices);
+  const result = await runAuditParallel(csv, choices, jobs, new URL(import.meta.url));
   if (fmt === 'csv') return auditCsv(result);
   if (fmt === 'md') return auditMarkdown(result);
   return toJson(result);
