@@ -11,11 +11,13 @@ import { effectiveTemperatureK, zamsLuminosityLsun, zamsRadiusRsun } from './zam
  *  - a main-sequence phase of length t_MS (Hurley, Pols & Tout 2000), radiating as a black body at a
  *    mid-main-sequence state: 1.5× the ZAMS luminosity and 1.5× the ZAMS radius (Tout et al. 1996).
  *    Stars brighten and swell on the main sequence (roughly doubling L between ZAMS and TAMS); the
- *    factors are our documented approximation (common practice, no source), and the error they and the
- *    black body bring is measured against published UV calibrations in the tests and README;
+ *    factors are our approximation, chosen while comparing the model with the published UV
+ *    calibrations (Kennicutt 1998; Madau & Dickinson 2014; Kennicutt & Evans 2012), so those
+ *    comparisons constrain them rather than test them independently (README, "The population model");
  *  - a post-main-sequence phase of 0.1 t_MS at twice the ZAMS luminosity, as a red giant or
  *    supergiant (T_eff = 4500 K) below 15 Msun and a blue supergiant (T_eff = 20 000 K) above
- *    (our documented approximation of core-helium burning, common practice, no source; not a fit);
+ *    (our approximation of core-helium burning; the 20 000 K was set with the same UV calibrations in
+ *    view, so it is calibrated, not independent of them);
  *  - then a remnant (remnant.ts), the rest of its mass returned to the gas.
  * Any SFH enters through C(a), the fraction of mass younger than a, so each bin's contribution is
  * exact for piecewise-constant stellar phases. Everything is per Msun ever formed.

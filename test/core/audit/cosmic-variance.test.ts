@@ -25,7 +25,7 @@ describe('cosmic variance of a pencil beam (Trenti & Stiavelli 2008 window)', ()
     expect(rel(power.sigmaR(24.937) * d10, 0.05302)).toBeLessThan(0.01);
     expect(boxSigmaDm(power, 17.2794, 217.548)).toBeLessThan(power.sigmaR(24.937));
   });
-  it('a cube of side L approaches a sphere of equal volume to within 10% (shape factor of order unity)', () => {
+  it('a cube of side L is within 10% of a sphere of equal volume (common practice, no source: compact shapes differ little)', () => {
     const L = 100;
     const r = Math.cbrt((3 * L ** 3) / (4 * Math.PI));
     expect(rel(boxSigmaDm(power, L, L), power.sigmaR(r))).toBeLessThan(0.1);
