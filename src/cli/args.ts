@@ -1,6 +1,7 @@
 import { parseArgs } from 'node:util';
 import { PARAM_SPECS, PRESETS, type CosmologyParams } from '../core/cosmology/index.js';
 import { CliError } from './cli-error.js';
+import { isStrictNumber } from '../core/numeric/strict-number.js';
 
 export type OptionSpec = Record<string, { type: 'string' | 'boolean'; short?: string; multiple?: boolean }>;
 
@@ -50,7 +51,7 @@ export function parse(argv: string[], options: OptionSpec, allowPositionals = fa
 export function num(flag: string, raw: string | boolean | undefined, opts: { min?: number; max?: number; gt?: number; lt?: number } = {}): number {
   if (typeof raw !== 'string' || raw.trim() === '') throw new CliError(`--${flag} needs a number`);
   const s = raw.trim();
-  if (!/^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/.test(s)) throw new CliError(`--${flag}: "${raw}" is not a number`);
+  if (!isStrictNumber(s)) throw new CliError(`--${flag}: "${raw}" is not a number`);
   const v = Number(s);
   if (!Number.isFinite(v)) throw new CliError(`--${flag}: ${raw} is out of the floating-point range`);
   if (opts.min !== undefined && v < opts.min) throw new CliError(`--${flag} must be ≥ ${opts.min} (got ${raw})`);

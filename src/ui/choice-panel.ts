@@ -3,7 +3,7 @@ import { customElement, property, state } from 'lit/decorators.js';
 import type { AuditChoices } from '../core/audit/index.js';
 import { PARAM_SPECS, PRESETS, type CosmologyParams } from '../core/cosmology/index.js';
 import { MASS_FUNCTIONS } from '../core/halos/index.js';
-import { IMF_PRESETS } from '../core/stars/index.js';
+import { IMF_PRESETS, parseCustomImf } from '../core/stars/index.js';
 
 type NumKey = 'epsRef' | 'quantile' | 'draws' | 'seed' | 'sliceDz' | 'formationZ';
 const NUM_FIELDS: { key: NumKey; label: string; min: number; max: number; step: string; help: string }[] = [
@@ -83,8 +83,11 @@ export class ChoicePanel extends LitElement {
   private addCustom(): void {
     const input = this.renderRoot.querySelector('#custom-imf') as HTMLInputElement;
     const spec = input.value.trim();
-    if (!/^custom:(\d*\.?\d+(e[+-]?\d+)?:)+\d*\.?\d+(e[+-]?\d+)?$/i.test(spec)) {
-      this.problems = { ...this.problems, imfs: 'custom IMF: write custom:m0:α1:m1[:α2:m2…], e.g. custom:0.1:1.3:0.5:2.3:100' };
+    try {
+      if (!spec.startsWith('custom:')) throw new RangeError('write custom:m0:α1:m1[:α2:m2…], e.g. custom:0.1:1.3:0.5:2.3:100');
+      parseCustomImf(spec); // the audit's own parser: the same rules and messages
+    } catch (e) {
+      this.problems = { ...this.problems, imfs: `custom IMF: ${(e as Error).message}` };
       return;
     }
     if (this.choices && !this.choices.imfs.includes(spec)) this.emit({ ...this.choices, imfs: [...this.choices.imfs, spec] });

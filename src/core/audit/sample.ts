@@ -1,4 +1,5 @@
 import Papa from 'papaparse';
+import { isStrictNumber } from '../numeric/strict-number.js';
 
 /**
  * The sample file (CSV, header row). Our column names and units:
@@ -62,13 +63,12 @@ export interface ParsedSample {
   readonly fileErrors: readonly string[];
 }
 
-const NUMBER_RE = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
 
 /** Strict number: plain decimal or exponent notation; no thousands separators, no comma decimals. */
 export function parseNumberCell(text: string): { value?: number; reason?: string } {
   const s = text.trim();
   if (s === '') return {};
-  if (!NUMBER_RE.test(s)) {
+  if (!isStrictNumber(s)) {
     if (/^[+-]?\d{1,3}(,\d{3})+$/.test(s)) return { reason: `"${text}" has a comma: write ${s.replace(/,/g, '')} if it is a thousands separator, or ${s.replace(',', '.')} if it is a decimal comma` };
     if (/^[+-]?\d+,\d+$/.test(s)) return { reason: `"${text}" uses a comma as decimal mark; write ${s.replace(',', '.')}` };
     if (/^[+-]?\d{1,3}(,\d{3})+(\.\d+)?$/.test(s)) return { reason: `"${text}" has thousands separators; write ${s.replace(/,/g, '')}` };

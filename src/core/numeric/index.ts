@@ -5,3 +5,4 @@ export type { CubicSpline } from './cubic-spline.js';
 export { findRoot } from './root-find.js';
 export { quantileSorted } from './quantile.js';
 export { selectKth, quantilesBySelection } from './select.js';
+export { isStrictNumber, parseStrictNumber } from './strict-number.js';

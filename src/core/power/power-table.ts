@@ -1,3 +1,5 @@
+import { parseStrictNumber } from '../numeric/strict-number.js';
+
 /**
  * Reads a tabulated linear P(k) at z = 0: two numeric columns per line, k [Mpc⁻¹] and P [Mpc³]
  * (no h), separated by spaces, tabs or one comma; lines starting with # are comments.
@@ -19,7 +21,7 @@ export function parsePowerTable(text: string, source = 'P(k) table'): PowerTable
     const parts = t.split(/\s*,\s*|\s+/);
     if (parts.length !== 2) throw new RangeError(`${source} line ${i + 1}: expected 2 columns (k, P), found ${parts.length}`);
     const vals = parts.map((s, c) => {
-      const v = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/.test(s) ? Number(s) : Number.NaN;
+      const v = parseStrictNumber(s);
       if (!Number.isFinite(v) || v <= 0) {
         throw new RangeError(`${source} line ${i + 1}, column ${c + 1} (${c === 0 ? 'k' : 'P'}): "${s}" is not a positive number`);
       }

@@ -1,4 +1,5 @@
 import { makeImf, type Imf, type ImfSegment } from './imf.js';
+import { parseStrictNumber } from '../numeric/strict-number.js';
 
 /** Salpeter 1955, ApJ 121, 161: ξ ∝ m^−2.35 over 0.1–100 Msun (the conventional limits). */
 export const SALPETER_SEGMENTS: readonly ImfSegment[] = [{ kind: 'power', mLo: 0.1, mHi: 100, alpha: 2.35 }];
@@ -104,7 +105,7 @@ export function parseCustomImf(spec: string): Imf {
     throw new RangeError(`custom IMF "${spec}": write custom:m0:α1:m1[:α2:m2…] (masses in Msun, slopes of dN/dm ∝ m^−α)`);
   }
   const v = parts.map((p, i) => {
-    const x = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/.test(p) ? Number(p) : Number.NaN;
+    const x = parseStrictNumber(p);
     if (!Number.isFinite(x)) throw new RangeError(`custom IMF "${spec}": item ${i + 1} ("${p}") is not a number`);
     return x;
   });

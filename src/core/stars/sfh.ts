@@ -1,3 +1,5 @@
+import { parseStrictNumber } from '../numeric/strict-number.js';
+
 /**
  * Star-formation histories, expressed as C(a): the fraction of all mass formed that is younger than
  * a (Myr), for a population whose oldest stars have age T (the population age). C(a ≥ T) = 1.
@@ -76,7 +78,7 @@ export function validateSfh(sfh: Sfh): void {
 export function parseSfh(spec: string): Sfh {
   const [kind, ...rest] = spec.split(':');
   const nums = rest.map((r, i) => {
-    const v = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/.test(r) ? Number(r) : Number.NaN;
+    const v = parseStrictNumber(r);
     if (!Number.isFinite(v)) throw new RangeError(`SFH "${spec}": item ${i + 1} ("${r}") is not a number`);
     return v;
   });
