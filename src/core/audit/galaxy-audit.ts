@@ -64,27 +64,24 @@ export interface AuditContext {
 const LOG_RESCALE = Math.log10(RESCALE_REST_UM);
 
 /**
- * log10 M⋆ of the draws at `valid` under each table: M/L looked up at each draw's (age, rest λ) — the
- * same grid position for every IMF — on the dust-corrected L_ν, or, for a reported mass, the mass
- * rescaled from imf_ref at rest RESCALE_REST_UM (the same light).
+ * Where the draws at `valid` sit in the M/L grid (the same position for every IMF's table) and the
+ * part of log10 M⋆ that does not depend on the IMF: log10 M⋆ = base + logMassToLightAt(x, y). For a
+ * brightness row, base = the dust-corrected log10 L_ν at (age, rest λ); for a reported mass, the mass
+ * divided by imf_ref's M/L at rest RESCALE_REST_UM (rescaling at the same light).
  */
-function drawMasses(g: GalaxyInput, d: GalaxyDraws, valid: readonly number[], tables: readonly MassToLightTable[], ref: MassToLightTable | undefined): Float64Array[] {
+function drawGrid(g: GalaxyInput, d: GalaxyDraws, valid: readonly number[], grid: MassToLightTable, ref: MassToLightTable | undefined): { x: Float64Array; y: Float64Array; base: Float64Array } {
   const nv = valid.length;
   const x = new Float64Array(nv);
   const y = new Float64Array(nv);
   const base = new Float64Array(nv);
   for (let i = 0; i < nv; i++) {
     const k = valid[i];
-    const [a, b] = tables[0].gridPositionLog(d.log10AgeMyr[k], g.log10Mstar !== undefined ? LOG_RESCALE : d.log10LambdaRestUm[k]);
+    const [a, b] = grid.gridPositionLog(d.log10AgeMyr[k], g.log10Mstar !== undefined ? LOG_RESCALE : d.log10LambdaRestUm[k]);
     x[i] = a;
     y[i] = b;
     base[i] = g.log10Mstar !== undefined ? d.log10MassRef[k] - ref!.logMassToLightAt(a, b) : d.log10Lnu[k];
   }
-  return tables.map((t) => {
-    const out = new Float64Array(nv);
-    for (let i = 0; i < nv; i++) out[i] = base[i] + t.logMassToLightAt(x[i], y[i]);
-    return out;
-  });
+  return { x, y, base };
 }
 
 /** Indices of the draws whose band fell inside the model's rest range (all, for a reported mass). */
@@ -126,17 +123,19 @@ export function auditGalaxy(ctx: AuditContext, g: GalaxyInput, index: number): G
   let headlineLogM = Number.NaN;
   const tableOf = (imf: string): MassToLightTable => ctx.cache.table(imf, g.z, ctx.sfh);
   const refTable = g.imfRef ? tableOf(g.imfRef) : undefined;
-  const masses = drawMasses(g, d, valid, imfs.map(tableOf), refTable);
-  for (const [m, imf] of imfs.entries()) {
+  const { x: gx, y: gy, base } = drawGrid(g, d, valid, tableOf(imfs[0]), refTable);
+  for (const imf of imfs) {
+    const tab = tableOf(imf);
     // Everything in log10: quantiles commute with the monotonic map, so no power of ten per draw.
-    const lm = masses[m];
+    const lm = new Float64Array(nv);
     const leps = new Float64Array(nv);
     const lepsCv = new Float64Array(nv);
     let over = 0;
     let strained = 0;
     const lRef = Math.log10(choices.epsRef);
     for (let i = 0; i < nv; i++) {
-      const v = lm[i];
+      const v = base[i] + tab.logMassToLightAt(gx[i], gy[i]);
+      lm[i] = v;
       const e = v - logCeil[i];
       leps[i] = e;
       lepsCv[i] = v - logCeilCv[i];
@@ -194,7 +193,9 @@ export function auditGalaxy(ctx: AuditContext, g: GalaxyInput, index: number): G
       continue;
     }
     const lc = lfb + ceil.log10HaloMassAtQuantile(zf);
-    const eps = drawMasses(g, df, okDraws, [tableOf(headline)], refTable)[0].map((v) => 10 ** (v - lc));
+    const head = tableOf(headline);
+    const cell = drawGrid(g, df, okDraws, head, refTable);
+    const eps = cell.base.map((b, i) => 10 ** (b + head.logMassToLightAt(cell.x[i], cell.y[i]) - lc));
     const med = quantilesBySelection(eps, [0.5])[0];
     redshiftChecks.push({ z: zf, kind, eps_required_median: med, verdict: verdictFor(med, choices.epsRef) });
   }
