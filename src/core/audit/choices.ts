@@ -11,6 +11,8 @@ export interface AuditChoices {
   readonly deltaC: DeltaCSpec;
   /** IMFs compared, in order; the first is the headline IMF for rows without imf_ref. */
   readonly imfs: readonly string[];
+  /** Headline IMF for rows given as light (default: the first of imfs); always compared. */
+  readonly headlineImf?: string;
   /** Star-formation history, as text (see parseSfh). */
   readonly sfh: string;
   readonly metallicity: number;

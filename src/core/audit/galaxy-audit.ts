@@ -2,38 +2,39 @@ import { quantilesBySelection } from '../numeric/select.js';
 import type { HaloModel } from '../halos/halo-model.js';
 import type { PopulationCache } from '../stars/population-cache.js';
 import type { MassToLightTable } from '../stars/mass-to-light.js';
-import { isTopHeavy } from '../stars/imf-presets.js';
 import type { Sfh } from '../stars/sfh.js';
-import { meanAccretionRateMsunYr } from './accretion.js';
+import { makeAccretionHistory } from './accretion.js';
+import { attribute, type AttributionDetail } from './attribution.js';
 import type { AuditChoices } from './choices.js';
-import { RESCALE_REST_UM } from './choices.js';
 import type { CeilingTable } from './ceiling.js';
 import { drawGalaxy, type GalaxyDraws } from './galaxy-draws.js';
+import { imfStatistics, type ImfResult, type ImfStatistics, type SharedDraws } from './imf-statistics.js';
+import { rescaleBase, rescalePosition } from './imf-rescale.js';
 import { mixSeed } from './random.js';
 import type { GalaxyInput } from './sample.js';
+import { logAccretedBaryons } from './time-budget.js';
 import { verdictFor, type Attribution, type Verdict } from './verdict.js';
 
-export interface ImfResult {
-  readonly verdict: Verdict;
-  readonly log_mstar_median: number;
-  readonly log_mstar_p16: number;
-  readonly log_mstar_p84: number;
-  readonly eps_required_median: number;
-  readonly eps_required_p05: number;
-  readonly eps_required_p95: number;
-  readonly p_over_budget: number;
-  readonly p_strained: number;
-  /** Median ε_req after the Eddington-bias correction of the measured mass. */
-  readonly eps_required_median_debiased: number;
-  /** Median ε_req against the ceiling widened by cosmic variance. */
-  readonly eps_required_median_cv: number;
-  readonly verdict_cv: Verdict;
+export type { ImfResult } from './imf-statistics.js';
+
+export interface TimeBudget {
+  readonly formation_z: number;
+  /** Headline IMF: median over the draws of (stellar mass formed) / (f_b × halo mass accreted over the same interval). */
+  readonly ratio: number;
+  /** P(ratio > 1): the chance that the halo could not have supplied the gas in time, even at ε = 1. */
+  readonly p_ratio_over_1: number;
+  /** Median stellar mass formed, M⋆/(1 − R), Msun (headline IMF). */
+  readonly formed_mass_msun: number;
+  /** Median baryons f_b ΔM_h accreted by the ceiling halo during the population's age, Msun. */
+  readonly accreted_baryons_msun: number;
+  readonly method: string;
 }
 
 export interface GalaxyAudit {
   readonly headline_imf: string;
   readonly verdict: Verdict;
   readonly attribution: Attribution[];
+  readonly attribution_detail: AttributionDetail[];
   readonly imf: Record<string, ImfResult>;
   readonly ceiling: {
     readonly slice_z_min: number;
@@ -44,8 +45,16 @@ export interface GalaxyAudit {
     readonly sigma_dm: number;
     readonly bias_smt01: number;
   };
-  readonly eddington: { readonly slope_alpha: number; readonly sigma_dex: number; readonly shift_dex: number; readonly method: string };
-  readonly time_budget: { readonly formation_z: number; readonly sfr_needed_msun_yr: number; readonly inflow_max_msun_yr: number; readonly ratio: number } | null;
+  readonly eddington: {
+    readonly sigma_dex: number;
+    /** Exact posterior-median shift of log M⋆ under the mass-function prior (headline IMF), dex. */
+    readonly shift_dex: number;
+    /** The first-order α σ² ln10 shift and its local slope α, for comparison. */
+    readonly shift_first_order_dex: number;
+    readonly slope_alpha: number;
+    readonly method: string;
+  };
+  readonly time_budget: TimeBudget | null;
   readonly redshift_checks: { readonly z: number; readonly kind: 'z_alt' | 'z_lo'; readonly eps_required_median: number; readonly verdict: Verdict }[];
   readonly draws_used: number;
   readonly draws_excluded: number;
@@ -61,13 +70,11 @@ export interface AuditContext {
   sigmaDmFor(surveyName: string | undefined, z: number): number;
 }
 
-const LOG_RESCALE = Math.log10(RESCALE_REST_UM);
-
 /**
  * Where the draws at `valid` sit in the M/L grid (the same position for every IMF's table) and the
  * part of log10 M⋆ that does not depend on the IMF: log10 M⋆ = base + logMassToLightAt(x, y). For a
- * brightness row, base = the dust-corrected log10 L_ν at (age, rest λ); for a reported mass, the mass
- * divided by imf_ref's M/L at rest RESCALE_REST_UM (rescaling at the same light).
+ * brightness row, base = the dust-corrected log10 L_ν at (age, rest λ); for a reported mass, the
+ * mass rescaled at the same light (imf-rescale.ts).
  */
 function drawGrid(g: GalaxyInput, d: GalaxyDraws, valid: readonly number[], grid: MassToLightTable, ref: MassToLightTable | undefined): { x: Float64Array; y: Float64Array; base: Float64Array } {
   const nv = valid.length;
@@ -76,10 +83,17 @@ function drawGrid(g: GalaxyInput, d: GalaxyDraws, valid: readonly number[], grid
   const base = new Float64Array(nv);
   for (let i = 0; i < nv; i++) {
     const k = valid[i];
-    const [a, b] = grid.gridPositionLog(d.log10AgeMyr[k], g.log10Mstar !== undefined ? LOG_RESCALE : d.log10LambdaRestUm[k]);
-    x[i] = a;
-    y[i] = b;
-    base[i] = g.log10Mstar !== undefined ? d.log10MassRef[k] - ref!.logMassToLightAt(a, b) : d.log10Lnu[k];
+    if (g.log10Mstar !== undefined) {
+      const [a, b] = rescalePosition(grid, d.log10AgeMyr[k]);
+      x[i] = a;
+      y[i] = b;
+      base[i] = rescaleBase(d.log10MassRef[k], ref!, a, b);
+    } else {
+      const [a, b] = grid.gridPositionLog(d.log10AgeMyr[k], d.log10LambdaRestUm[k]);
+      x[i] = a;
+      y[i] = b;
+      base[i] = d.log10Lnu[k];
+    }
   }
   return { x, y, base };
 }
@@ -89,6 +103,91 @@ function validDraws(g: GalaxyInput, d: GalaxyDraws): number[] {
   const valid: number[] = [];
   for (let k = 0; k < d.n; k++) if (g.log10Mstar !== undefined || Number.isFinite(d.log10Lnu[k])) valid.push(k);
   return valid;
+}
+
+/**
+ * The headline IMF and the IMFs compared. A reported mass's imf_ref is always its headline; other rows
+ * take the run's headline IMF (default: the first of the list). The headline is always compared: it is
+ * put first if the list lacks it. The choice never depends on the order of the rest of the list.
+ */
+export function headlineAndCompared(g: GalaxyInput, choices: AuditChoices): { headline: string; imfs: string[] } {
+  const headline = g.imfRef ?? choices.headlineImf ?? choices.imfs[0];
+  const imfs = choices.imfs.includes(headline) ? [...choices.imfs] : [headline, ...choices.imfs];
+  return { headline, imfs };
+}
+
+/** The fixed-redshift checks (alternative solution, lower bound) of the headline IMF, for the attribution. */
+function redshiftChecks(ctx: AuditContext, g: GalaxyInput, seed: number, headTab: MassToLightTable, refTab: MassToLightTable | undefined, notes: string[]): GalaxyAudit['redshift_checks'] {
+  const { choices, halo } = ctx;
+  const ceil = ctx.ceilingFor(g.survey);
+  const lfb = Math.log10(halo.baryonFraction);
+  const fixed: [number, 'z_alt' | 'z_lo', boolean][] = [];
+  if (g.zAlt !== undefined) fixed.push([g.zAlt, 'z_alt', true]);
+  if (g.zLo !== undefined && g.zLo < g.z) fixed.push([Math.max(g.zLo, 0.05), 'z_lo', false]);
+  const out: GalaxyAudit['redshift_checks'] = [];
+  for (const [zf, kind, isAlt] of fixed) {
+    const df = drawGalaxy(g, Math.min(choices.draws, 2000), seed, halo.background, { z: zf, alt: isAlt });
+    const ok = validDraws(g, df);
+    if (!ok.length) {
+      notes.push(`at ${kind} = ${zf} the band falls outside the model's rest range; that solution was not evaluated`);
+      continue;
+    }
+    const lc = lfb + ceil.log10HaloMassAtQuantile(zf);
+    const cell = drawGrid(g, df, ok, headTab, refTab);
+    const leps = cell.base.map((b, i) => b + headTab.logMassToLightAt(cell.x[i], cell.y[i]) - lc);
+    const med = 10 ** quantilesBySelection(leps, [0.5])[0];
+    out.push({ z: zf, kind, eps_required_median: med, verdict: verdictFor(med, choices.epsRef) });
+  }
+  return out;
+}
+
+/** Ceilings (log10 f_b M_halo,q, without and with cosmic variance) at each valid draw's redshift. */
+function drawCeilings(ceil: CeilingTable, fb: number, sigmaDm: number, z: Float64Array, valid: readonly number[]): { logCeil: Float64Array; logCeilCv: Float64Array } {
+  const nv = valid.length;
+  const logCeil = new Float64Array(nv);
+  const logCeilCv = new Float64Array(nv);
+  const lfb = Math.log10(fb);
+  for (let i = 0; i < nv; i++) {
+    const zk = z[valid[i]];
+    logCeil[i] = lfb + ceil.log10HaloMassAtQuantile(zk);
+    // σ_dm is evaluated once, at the galaxy's nominal z (it changes slowly with z across the slice).
+    logCeilCv[i] = lfb + ceil.log10HaloMassAtQuantileCv(zk, sigmaDm);
+  }
+  return { logCeil, logCeilCv };
+}
+
+/** log10 f_b ΔM_h per valid draw over its star formation (undefined when z is not below the formation redshift). */
+function drawAccretion(ctx: AuditContext, g: GalaxyInput, d: GalaxyDraws, valid: readonly number[], logCeil: Float64Array): Float64Array | undefined {
+  const { halo, choices } = ctx;
+  if (!(g.z < choices.formationZ)) return undefined;
+  const lfb = Math.log10(halo.baryonFraction);
+  const zs = valid.map((k) => d.z[k]);
+  const ages = valid.map((k) => d.log10AgeMyr[k]);
+  const halos = Array.from(logCeil, (v) => v - lfb);
+  return logAccretedBaryons(halo.background, makeAccretionHistory(halo.background), halo.baryonFraction, choices.formationZ, zs, ages, halos);
+}
+
+function timeBudgetOf(ctx: AuditContext, g: GalaxyInput, head: ImfStatistics, acc: Float64Array | undefined, notes: string[]): TimeBudget | null {
+  const fz = ctx.choices.formationZ;
+  if (!acc) {
+    notes.push(`z = ${g.z} is not below the formation redshift ${fz}: no time budget`);
+    return null;
+  }
+  const r = head.result;
+  if (r.time_budget_ratio_median === undefined || head.formedMassMedianMsun === undefined) {
+    notes.push(`most draws leave no time for star formation after the formation redshift ${fz}: no time budget`);
+    return null;
+  }
+  return {
+    formation_z: fz,
+    ratio: r.time_budget_ratio_median,
+    p_ratio_over_1: r.p_time_budget_over!,
+    formed_mass_msun: head.formedMassMedianMsun,
+    accreted_baryons_msun: 10 ** quantilesBySelection(Float64Array.from(acc), [0.5])[0],
+    method:
+      'per draw: stellar mass formed M*/(1 − R) (R of the population model at the drawn age) over f_b × the mass the ceiling halo accretes in ' +
+      `[max(t(z) − age, t(z = ${fz})), t(z)] on its mean history (Fakhouri, Ma & Boylan-Kolchin 2010, integrated along M_h(z))`,
+  };
 }
 
 export function auditGalaxy(ctx: AuditContext, g: GalaxyInput, index: number): GalaxyAudit {
@@ -106,122 +205,36 @@ export function auditGalaxy(ctx: AuditContext, g: GalaxyInput, index: number): G
   if (g.log10Mstar !== undefined && g.zAlt !== undefined && g.log10MstarAlt === undefined) {
     notes.push('no log_mstar_alt: the mass at z_alt was rescaled by the luminosity-distance ratio, D_L(z_alt)²/D_L(z)² · (1+z)/(1+z_alt)');
   }
-  const nv = valid.length;
-  const logCeil = new Float64Array(nv);
-  const logCeilCv = new Float64Array(nv);
-  const lfb = Math.log10(fb);
-  for (let i = 0; i < nv; i++) {
-    const zk = d.z[valid[i]];
-    logCeil[i] = lfb + ceil.log10HaloMassAtQuantile(zk);
-    // σ_dm is evaluated once, at the galaxy's nominal z (it changes slowly with z across the slice).
-    logCeilCv[i] = lfb + ceil.log10HaloMassAtQuantileCv(zk, sigmaDm);
-  }
-  const headline = g.imfRef && choices.imfs.includes(g.imfRef) ? g.imfRef : choices.imfs[0];
-  const imfs = g.imfRef && !choices.imfs.includes(g.imfRef) ? [g.imfRef, ...choices.imfs] : [...choices.imfs];
-  const imfResults: Record<string, ImfResult> = {};
-  let eddington = { slope_alpha: 0, sigma_dex: 0, shift_dex: 0, method: '' };
-  let headlineLogM = Number.NaN;
+  const { logCeil, logCeilCv } = drawCeilings(ceil, fb, sigmaDm, d.z, valid);
+  const { headline, imfs } = headlineAndCompared(g, choices);
   const tableOf = (imf: string): MassToLightTable => ctx.cache.table(imf, g.z, ctx.sfh);
   const refTable = g.imfRef ? tableOf(g.imfRef) : undefined;
   const { x: gx, y: gy, base } = drawGrid(g, d, valid, tableOf(imfs[0]), refTable);
-  for (const imf of imfs) {
-    const tab = tableOf(imf);
-    // Everything in log10: quantiles commute with the monotonic map, so no power of ten per draw.
-    const lm = new Float64Array(nv);
-    const leps = new Float64Array(nv);
-    const lepsCv = new Float64Array(nv);
-    let over = 0;
-    let strained = 0;
-    const lRef = Math.log10(choices.epsRef);
-    for (let i = 0; i < nv; i++) {
-      const v = base[i] + tab.logMassToLightAt(gx[i], gy[i]);
-      lm[i] = v;
-      const e = v - logCeil[i];
-      leps[i] = e;
-      lepsCv[i] = v - logCeilCv[i];
-      if (e > 0) over++;
-      if (e > lRef) strained++;
-    }
-    const [lm16, lmMed, lm84] = quantilesBySelection(lm, [0.16, 0.5, 0.84]);
-    const [le05, leMed, le95] = quantilesBySelection(leps, [0.05, 0.5, 0.95]);
-    const med = 10 ** leMed;
-    const medCv = 10 ** quantilesBySelection(lepsCv, [0.5])[0];
-    // Eddington bias: with dn/dlog M ∝ M^−α near the host mass and Gaussian log-mass errors σ, the
-    // true mass is lower on average by α σ² ln10 dex (Eddington 1913, MNRAS 73, 359; the posterior mean
-    // of a Gaussian error on a power-law prior). Host mass: M⋆/(f_b ε) with ε = median ε_req in [ε_ref, 1].
-    const sigmaDex = g.log10Mstar !== undefined ? g.log10MstarErr : 0.4 * g.magErr;
-    const epsHost = Math.min(1, Math.max(med, choices.epsRef));
-    const mHost = Math.min(Math.max(10 ** lmMed / (fb * epsHost), 1e3), 1e18);
-    const alpha = -Math.log(halo.dndlnM(mHost * 1.1, g.z) / halo.dndlnM(mHost / 1.1, g.z)) / Math.log(1.21);
-    const shift = alpha * sigmaDex * sigmaDex * Math.LN10;
-    if (imf === headline) {
-      eddington = {
-        slope_alpha: alpha,
-        sigma_dex: sigmaDex,
-        shift_dex: shift,
-        method: `dn/dlnM ∝ M^−α at the host mass M⋆/(f_b ε), ε = the median ε_req clamped to [ε_ref, 1], α from the ${halo.model.label} mass function at z = ${g.z}; measured log M* lowered by α σ² ln10`,
-      };
-      headlineLogM = lmMed;
-    }
-    imfResults[imf] = {
-      verdict: verdictFor(med, choices.epsRef),
-      log_mstar_median: lmMed,
-      log_mstar_p16: lm16,
-      log_mstar_p84: lm84,
-      eps_required_median: med,
-      eps_required_p05: 10 ** le05,
-      eps_required_p95: 10 ** le95,
-      p_over_budget: over / nv,
-      p_strained: strained / nv,
-      eps_required_median_debiased: med * 10 ** -shift,
-      eps_required_median_cv: medCv,
-      verdict_cv: verdictFor(medCv, choices.epsRef),
-    };
-  }
-  // Redshift checks, for the attribution of a strained or over-budget headline verdict: the same
-  // draws with z fixed at the alternative solution and at the lower bound of the interval.
-  const redshiftChecks: GalaxyAudit['redshift_checks'] = [];
-  const fixedChecks: [number, 'z_alt' | 'z_lo', boolean][] = [];
-  const needsAttribution = imfResults[headline].verdict !== 'within budget';
-  if (needsAttribution && g.zAlt !== undefined) fixedChecks.push([g.zAlt, 'z_alt', true]);
-  if (needsAttribution && g.zLo !== undefined && g.zLo < g.z) fixedChecks.push([Math.max(g.zLo, 0.05), 'z_lo', false]);
-  for (const [zf, kind, isAlt] of fixedChecks) {
-    const df = drawGalaxy(g, Math.min(n, 2000), seed, halo.background, { z: zf, alt: isAlt });
-    const okDraws = validDraws(g, df);
-    if (!okDraws.length) {
-      notes.push(`at ${kind} = ${zf} the band falls outside the model's rest range; that solution was not evaluated`);
-      continue;
-    }
-    const lc = lfb + ceil.log10HaloMassAtQuantile(zf);
-    const head = tableOf(headline);
-    const cell = drawGrid(g, df, okDraws, head, refTable);
-    const eps = cell.base.map((b, i) => 10 ** (b + head.logMassToLightAt(cell.x[i], cell.y[i]) - lc));
-    const med = quantilesBySelection(eps, [0.5])[0];
-    redshiftChecks.push({ z: zf, kind, eps_required_median: med, verdict: verdictFor(med, choices.epsRef) });
-  }
+  const acc = drawAccretion(ctx, g, d, valid, logCeil);
+  const shared: SharedDraws = { n: valid.length, base, gx, gy, logCeil, logCeilCv, logAccretedBaryons: acc };
+  const sigmaDex = g.log10Mstar !== undefined ? g.log10MstarErr : 0.4 * g.magErr;
+  const ed = { halo, z: g.z, sigmaDex, epsRef: choices.epsRef };
+  const stats: Record<string, ImfStatistics> = {};
+  for (const imf of imfs) stats[imf] = imfStatistics(tableOf(imf), shared, ed, imf === headline);
+  const imfResults: Record<string, ImfResult> = Object.fromEntries(imfs.map((i) => [i, stats[i].result]));
   const h = imfResults[headline];
-  const attribution: Attribution[] = [];
-  if (needsAttribution) {
-    const cleared = imfs.filter((i) => imfResults[i].verdict === 'within budget');
-    if (!cleared.length) attribution.push('holds under every IMF');
-    if (cleared.some((i) => isTopHeavy(i))) attribution.push('IMF-driven');
-    if (redshiftChecks.some((r) => r.verdict === 'within budget')) attribution.push('redshift-driven');
-    if (h.verdict_cv === 'within budget') attribution.push('volume-driven');
-  }
+  const checks = h.verdict !== 'within budget' ? redshiftChecks(ctx, g, seed, tableOf(headline), refTable, notes) : [];
+  const { attribution, attribution_detail } = attribute({
+    headlineImf: headline,
+    headlineVerdict: h.verdict,
+    imfVerdicts: Object.fromEntries(imfs.map((i) => [i, imfResults[i].verdict])),
+    redshiftChecks: checks,
+    verdictCosmicVariance: h.verdict_cv,
+    verdictEddington: h.verdict_debiased,
+    eddingtonShiftDex: h.eddington_shift_dex,
+  });
   const mCeil = ceil.haloMassAtQuantile(g.z);
-  const bg = halo.background;
-  let timeBudget: GalaxyAudit['time_budget'] = null;
-  if (g.z < choices.formationZ) {
-    const dtYr = (bg.ageGyr(g.z) - bg.ageGyr(choices.formationZ)) * 1e9;
-    const sfr = 10 ** headlineLogM / dtYr;
-    const inflow = fb * meanAccretionRateMsunYr(mCeil, g.z, halo.options.cosmology.omegaM, bg.omegaDE);
-    timeBudget = { formation_z: choices.formationZ, sfr_needed_msun_yr: sfr, inflow_max_msun_yr: inflow, ratio: sfr / inflow };
-  } else notes.push(`z = ${g.z} is not below the formation redshift ${choices.formationZ}: no time budget`);
   const [s0, s1] = ceil.sliceLimits(g.z);
   return {
     headline_imf: headline,
     verdict: h.verdict,
     attribution,
+    attribution_detail,
     imf: imfResults,
     ceiling: {
       slice_z_min: s0,
@@ -232,9 +245,17 @@ export function auditGalaxy(ctx: AuditContext, g: GalaxyInput, index: number): G
       sigma_dm: sigmaDm,
       bias_smt01: halo.bias(mCeil, g.z, 'smt01'),
     },
-    eddington,
-    time_budget: timeBudget,
-    redshift_checks: redshiftChecks,
+    eddington: {
+      sigma_dex: sigmaDex,
+      shift_dex: h.eddington_shift_dex,
+      shift_first_order_dex: stats[headline].eddingtonFirstOrderDex,
+      slope_alpha: stats[headline].eddingtonSlopeAlpha,
+      method:
+        `exact posterior median of log M* for a Gaussian error of σ dex and the prior dn/dlog M_h (${halo.model.label}, z = ${g.z}) at the host mass ` +
+        'M*/(f_b ε), ε = the median ε_req clamped to [ε_ref, 1]; the first-order α σ² ln10 is given for comparison',
+    },
+    time_budget: timeBudgetOf(ctx, g, stats[headline], acc, notes),
+    redshift_checks: checks,
     draws_used: valid.length,
     draws_excluded: d.excluded,
     notes,

@@ -82,6 +82,7 @@ function envFor(choices: AuditChoices): Env {
 export function prepareAudit(sampleCsv: string, choices: AuditChoices): PreparedAudit {
   const problems = [...validateChoices(choices), ...validateSurvey(choices.survey, 'default survey'), ...choices.surveys.flatMap((s) => validateSurvey(s))];
   for (const imf of choices.imfs) if (!knownImf(imf)) problems.push(`--imf: unknown IMF "${imf}"`);
+  if (choices.headlineImf !== undefined && !knownImf(choices.headlineImf)) problems.push(`--headline-imf: unknown IMF "${choices.headlineImf}"`);
   let sfh;
   try {
     sfh = parseSfh(choices.sfh);
@@ -168,7 +169,7 @@ export function finishAudit(prep: PreparedAudit, galaxies: GalaxyRow[]): AuditRe
       const h = g.imf![g.headline_imf!];
       members.push({ id: g.id, log10M: h.log_mstar_median, log10MLo: h.log_mstar_p16, log10MHi: h.log_mstar_p84 });
     }
-    return binBudget(prep.ctx.halo, choices.survey.areaArcmin2, z0, z1, choices.epsRef, members);
+    return binBudget(prep.ctx.halo, choices.survey.areaArcmin2, z0, z1, choices.epsRef, members, choices.quantile);
   });
   return {
     galaxies,

@@ -2,6 +2,7 @@ import { ARCMIN2_SR } from '../constants.js';
 import { gaussLegendre } from '../numeric/gauss-legendre.js';
 import { findRoot } from '../numeric/root-find.js';
 import type { HaloModel, HaloSlice } from '../halos/halo-model.js';
+import { poissonAtLeast, poissonMeanForChance } from './poisson.js';
 
 /**
  * Sample-level budget per redshift bin: the cumulative stellar number and mass densities of the
@@ -9,6 +10,11 @@ import type { HaloModel, HaloSlice } from '../halos/halo-model.js';
  * n_h(>M⋆/(ε f_b)) and ε f_b ρ_m(>M⋆/(ε f_b)) (the baryon-budget argument, e.g. Behroozi & Silk 2018,
  * MNRAS 477, 5382; Boylan-Kolchin 2023, Nat. Astron. 7, 731), with the halo quantities averaged over
  * the bin's volume. The ε the sample requires is the smallest ε meeting every threshold.
+ *
+ * On the same footing as the per-galaxy verdicts (the rarest halo at quantile q): for the k most
+ * massive galaxies of the bin, μ = V n̄_h(>M⋆_k/(ε f_b)) haloes are expected that could host the k-th,
+ * P(N ≥ k) = P(k, μ) for a Poisson count (see poisson.ts), and eps_required_q is the ε at which
+ * P(N ≥ k) = 1 − q. For k = 1 this is the per-galaxy criterion Φ = exp(−N) = q of the bin's volume.
  */
 export interface BudgetPoint {
   readonly id: string;
@@ -25,6 +31,12 @@ export interface BudgetPoint {
   readonly n_limit_eps_ref_mpc3: number;
   readonly eps_required_rho: number;
   readonly eps_required_n: number;
+  /** Expected number of haloes above M⋆_k/f_b (ε = 1) in the bin's volume. */
+  readonly expected_hosts_eps1: number;
+  /** P(N ≥ k) for a Poisson mean of expected_hosts_eps1: the chance that ΛCDM hosts k such galaxies at ε = 1. */
+  readonly p_chance_eps1: number;
+  /** The ε at which P(N ≥ k) = 1 − q (q = the run's rarest-halo quantile). */
+  readonly eps_required_q: number;
 }
 
 export interface BinBudget {
@@ -35,6 +47,8 @@ export interface BinBudget {
   readonly points: BudgetPoint[];
   readonly eps_required_rho: number;
   readonly eps_required_n: number;
+  /** The largest eps_required_q of the bin's points (the sample's requirement at quantile q). */
+  readonly eps_required_q: number;
 }
 
 export interface BudgetMember {
@@ -47,7 +61,7 @@ export interface BudgetMember {
 const EPS_MIN = 1e-4;
 const EPS_MAX = 1e3;
 
-export function binBudget(halo: HaloModel, areaArcmin2: number, zMin: number, zMax: number, epsRef: number, members: readonly BudgetMember[]): BinBudget {
+export function binBudget(halo: HaloModel, areaArcmin2: number, zMin: number, zMax: number, epsRef: number, members: readonly BudgetMember[], quantile: number): BinBudget {
   const bg = halo.background;
   const omega = areaArcmin2 * ARCMIN2_SR;
   const volume = bg.surveyVolumeMpc3(areaArcmin2, zMin, zMax);
@@ -100,6 +114,9 @@ export function binBudget(halo: HaloModel, areaArcmin2: number, zMin: number, zM
     const mStar = 10 ** m.log10M;
     const rho = sum / volume;
     const nn = (r + 1) / volume;
+    const k = r + 1;
+    const hosts = volume * nLimit(mStar, 1);
+    const muQ = poissonMeanForChance(k, 1 - quantile);
     return {
       id: m.id,
       log_mstar: m.log10M,
@@ -115,6 +132,9 @@ export function binBudget(halo: HaloModel, areaArcmin2: number, zMin: number, zM
       n_limit_eps_ref_mpc3: nLimit(mStar, epsRef),
       eps_required_rho: solveEps(rho, (e) => rhoLimit(mStar, e)),
       eps_required_n: solveEps(nn, (e) => nLimit(mStar, e)),
+      expected_hosts_eps1: hosts,
+      p_chance_eps1: poissonAtLeast(k, hosts),
+      eps_required_q: solveEps(muQ / volume, (e) => nLimit(mStar, e)),
     };
   });
   return {
@@ -125,5 +145,6 @@ export function binBudget(halo: HaloModel, areaArcmin2: number, zMin: number, zM
     points,
     eps_required_rho: points.reduce((a, p) => Math.max(a, p.eps_required_rho), 0),
     eps_required_n: points.reduce((a, p) => Math.max(a, p.eps_required_n), 0),
+    eps_required_q: points.reduce((a, p) => Math.max(a, p.eps_required_q), 0),
   };
 }
