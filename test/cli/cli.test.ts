@@ -50,8 +50,8 @@ describe('CLI contract', () => {
   it('mass echoes the inputs, gives best/min/max per IMF and the caution', async () => {
     const j = JSON.parse((await run(['mass', '--z', '9.1', '--m-ab', '26.2', '--lambda-obs-um', '1.5', '--beta', '-2.0', '--imf', 'salpeter,chabrier', '--sfh', 'constant'])).out);
     expect(j.inputs).toMatchObject({ z: 9.1, m_ab: 26.2, lambda_obs_um: 1.5, beta: -2 });
-    expect(j.rows[0].log_mstar_min).toBeLessThanOrEqual(j.rows[0].log_mstar_best);
-    expect(j.rows[0].log_mstar_best).toBeLessThanOrEqual(j.rows[0].log_mstar_max);
+    expect(j.rows[0].log_mstar_min).toBeLessThanOrEqual(j.rows[0].log_mstar_median_age_prior);
+    expect(j.rows[0].log_mstar_median_age_prior).toBeLessThanOrEqual(j.rows[0].log_mstar_max);
     expect(j.caution).toMatch(/depend/);
   });
   it('assess on a sample file gives the documented shape, with rejected rows kept, exit 0', async () => {

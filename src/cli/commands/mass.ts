@@ -11,8 +11,9 @@ export const MASS_CAUTION =
 
 export const MASS_HELP = `Usage: mass --z 9.1 (--m-ab 26.2 --lambda-obs-um 1.5 | --muv -21.3 | --lnu L --lambda-rest-um λ)
             [--beta -2.0 | --av 0.3] [--imf A,B,...] [--sfh constant] [--format json|csv]
-Stellar mass (stars + remnants, Msun) per IMF from one brightness: most likely value (median over
-a log-uniform age prior from 1 Myr to the cosmic age at z) and the range over all allowed ages.
+Stellar mass (stars + remnants, Msun) per IMF from one brightness: the median over a log-uniform
+age prior from 1 Myr to the cosmic age at z (log_mstar_median_age_prior; a prior median, not a
+best fit) and the range over all allowed ages.
 M_UV is taken at rest 1500 Å. Dust: --beta uses A1600 = 4.43 + 1.99β (Meurer et al. 1999),
 --av uses A_V; both carried to the band with the Calzetti et al. (2000) curve.
 
@@ -59,7 +60,7 @@ export function runMass(argv: string[]): string {
   const cache = makePopulationCache(num('metallicity', values.metallicity ?? '0.02', { min: 1e-4, max: 0.03 }));
   const rows = names.map((imf) => {
     const e = estimateMass(cache, imf, sfh, brightness, dust, z, bg);
-    return { imf, log_mstar_best: e.log10MstarBest, log_mstar_min: e.log10MstarMin, log_mstar_max: e.log10MstarMax, age_at_min_myr: e.ageMinMyr, age_at_max_myr: e.ageMaxMyr };
+    return { imf, log_mstar_median_age_prior: e.log10MstarBest, log_mstar_min: e.log10MstarMin, log_mstar_max: e.log10MstarMax, age_at_min_myr: e.ageMinMyr, age_at_max_myr: e.ageMaxMyr };
   });
   if (fmt === 'csv') return toCsv(rows);
   const inputs: Record<string, unknown> = { z, sfh: typeof values.sfh === 'string' ? values.sfh : 'constant' };
