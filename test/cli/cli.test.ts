@@ -124,7 +124,7 @@ describe('CLI errors: exit 2, one line naming the flag, no stack trace, no NaN',
   }
   it('a tampered record names the field', async () => {
     const f = join(tmp, 'bad.json');
-    writeFileSync(f, JSON.stringify({ tool: 'baryon-audit', format: 1, sample_csv: 'id,z\n', choices: { massFunction: 'sheth-tormen' } }));
+    writeFileSync(f, JSON.stringify({ tool: 'baryon-audit', version: '0.1.0', format: 1, sample_csv: 'id,z\n', choices: { massFunction: 'sheth-tormen' } }));
     const r = await run(['assess', '--record', f]);
     expect(r.code).toBe(2);
     expect(r.err).toMatch(/record\.choices\.sfh/);

@@ -1,9 +1,14 @@
 export { runAudit, prepareAudit, auditRow, finishAudit, AUDIT_CAUTION } from './run-audit.js';
 export type { AuditResult, GalaxyRow, PreparedAudit } from './run-audit.js';
-export { validateRecord, TOOL_NAME, TOOL_VERSION, RECORD_FORMAT } from './record.js';
+export { validateRecord, recordIn, TOOL_NAME, TOOL_VERSION, RECORD_FORMAT, READABLE_VERSIONS } from './record.js';
 export type { AuditRecord } from './record.js';
 export type { AuditChoices } from './choices.js';
-export { DEFAULT_IMFS, RESCALE_REST_UM, validateChoices } from './choices.js';
+export { DEFAULT_IMFS, RESCALE_REST_UM, validateChoices, normalizeChoices } from './choices.js';
+export { CHOICE_SPECS, SURVEY_SPECS, DELTA_C_SPEC, Z_BIN_SPEC, FULL_SKY_ARCMIN2, specByKey, specProblem, rangeText } from './choice-specs.js';
+export type { ChoiceSpec, NumericChoiceKey, SurveyNumberKey } from './choice-specs.js';
+export { checkChoices, checkSurvey, problemText, SCHEMA_LIMITS } from './choice-schema.js';
+export type { ChoiceProblem } from './choice-schema.js';
+export { imfProblem, isKnownImf } from './imf-check.js';
 export { parseSample, parseNumberCell, KNOWN_COLUMNS } from './sample.js';
 export type { GalaxyInput, ParsedSample, RowProblem, SampleRow } from './sample.js';
 export { parseSurveys, validateSurvey } from './survey.js';

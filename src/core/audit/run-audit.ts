@@ -1,14 +1,14 @@
 import { makeHaloModel, type HaloModel } from '../halos/halo-model.js';
 import { makePopulationCache, type PopulationCache } from '../stars/population-cache.js';
-import { IMF_NAMES, resolveImf } from '../stars/imf-presets.js';
+import { isKnownImf } from './imf-check.js';
 import { parseSfh } from '../stars/sfh.js';
 import { makeCeilingTable, type CeilingTable } from './ceiling.js';
-import { validateChoices, type AuditChoices } from './choices.js';
+import { normalizeChoices, validateChoices, type AuditChoices } from './choices.js';
 import { boxSigmaDm } from './cosmic-variance.js';
 import { auditGalaxy, type AuditContext, type GalaxyAudit } from './galaxy-audit.js';
 import { parseSample, type ParsedSample, type RowProblem } from './sample.js';
 import { binBudget, type BinBudget, type BudgetMember } from './sample-budget.js';
-import { validateSurvey, type Survey } from './survey.js';
+import type { Survey } from './survey.js';
 import type { Verdict } from './verdict.js';
 
 import { RECORD_FORMAT, TOOL_NAME, TOOL_VERSION, type AuditRecord } from './record.js';
@@ -35,15 +35,7 @@ export interface AuditResult {
   readonly record: AuditRecord;
 }
 
-const knownImf = (name: string): boolean => {
-  if (IMF_NAMES.includes(name)) return true;
-  try {
-    resolveImf(name);
-    return true;
-  } catch {
-    return false;
-  }
-};
+const knownImf = isKnownImf;
 
 /** Parsed sample plus the shared machinery (halo model, population tables, ceilings) of one audit. */
 export interface PreparedAudit {
@@ -79,16 +71,11 @@ function envFor(choices: AuditChoices): Env {
 }
 
 /** Validates the choices (throws RangeError naming every bad one), parses the sample, builds the shared parts. */
-export function prepareAudit(sampleCsv: string, choices: AuditChoices): PreparedAudit {
-  const problems = [...validateChoices(choices), ...validateSurvey(choices.survey, 'default survey'), ...choices.surveys.flatMap((s) => validateSurvey(s))];
-  for (const imf of choices.imfs) if (!knownImf(imf)) problems.push(`--imf: unknown IMF "${imf}"`);
-  let sfh;
-  try {
-    sfh = parseSfh(choices.sfh);
-  } catch (e) {
-    problems.push(`--sfh: ${(e as Error).message}`);
-  }
-  if (problems.length || !sfh) throw new RangeError(problems.join('; '));
+export function prepareAudit(sampleCsv: string, given: AuditChoices): PreparedAudit {
+  const problems = validateChoices(given);
+  if (problems.length) throw new RangeError(problems.join('; '));
+  const choices = normalizeChoices(given);
+  const sfh = parseSfh(choices.sfh);
   const parsed = parseSample(sampleCsv, knownImf);
   const env = envFor(choices);
   const { halo, cache } = env;
