@@ -1,4 +1,4 @@
-export { runAudit, prepareAudit, auditRow, finishAudit, AUDIT_CAUTION } from './run-audit.js';
+export { runAudit, prepareAudit, auditRow, finishAudit, firstNonFinite, AUDIT_CAUTION } from './run-audit.js';
 export type { AuditResult, GalaxyRow, PreparedAudit } from './run-audit.js';
 export { validateRecord, recordIn, TOOL_NAME, TOOL_VERSION, RECORD_FORMAT, READABLE_VERSIONS } from './record.js';
 export type { AuditRecord } from './record.js';

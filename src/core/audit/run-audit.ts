@@ -124,6 +124,23 @@ export function prepareAudit(sampleCsv: string, given: AuditChoices): PreparedAu
   return { sampleCsv, choices, parsed, ctx };
 }
 
+/** The path of the first number in `v` that is NaN or ±Infinity (undefined if none). */
+export function firstNonFinite(v: unknown, path: string): string | undefined {
+  if (typeof v === 'number') return Number.isFinite(v) ? undefined : path || '(value)';
+  if (Array.isArray(v)) {
+    for (let i = 0; i < v.length; i++) {
+      const p = firstNonFinite(v[i], `${path}[${i}]`);
+      if (p !== undefined) return p;
+    }
+  } else if (v && typeof v === 'object') {
+    for (const [k, x] of Object.entries(v)) {
+      const p = firstNonFinite(x, path ? `${path}.${k}` : k);
+      if (p !== undefined) return p;
+    }
+  }
+  return undefined;
+}
+
 /** Audits one parsed row (by its position in parsed.rows). */
 export function auditRow(prep: PreparedAudit, index: number): GalaxyRow {
   const r = prep.parsed.rows[index];
@@ -134,12 +151,19 @@ export function auditRow(prep: PreparedAudit, index: number): GalaxyRow {
   if (r.galaxy!.survey && !named.has(r.galaxy!.survey)) {
     return { ...base, status: 'rejected', errors: [{ row: r.row, column: 'survey', reason: `"${r.galaxy!.survey}" is not in the surveys file (known: ${[...named].join(', ') || 'none'})` }] };
   }
+  let audit: GalaxyAudit;
   try {
-    return { ...base, status: 'ok', errors: [], ...auditGalaxy(prep.ctx, r.galaxy!, r.row) };
+    audit = auditGalaxy(prep.ctx, r.galaxy!, r.row);
   } catch (e) {
-    if (!(e instanceof RangeError)) throw e;
-    return { ...base, status: 'rejected', errors: [{ row: r.row, column: '(model)', reason: e.message }] };
+    // Whatever fails while computing one galaxy rejects that galaxy, never the run.
+    const reason = e instanceof Error ? e.message : String(e);
+    return { ...base, status: 'rejected', errors: [{ row: r.row, column: '(model)', reason: `the audit of this galaxy failed: ${reason}` }] };
   }
+  const bad = firstNonFinite(audit, '');
+  if (bad !== undefined) {
+    return { ...base, status: 'rejected', errors: [{ row: r.row, column: '(model)', reason: `the audit of this galaxy gave a non-finite ${bad}; this row lies outside the range where the model's tables hold, so it is not reported` }] };
+  }
+  return { ...base, status: 'ok', errors: [], ...audit };
 }
 
 /** Sample-level budgets and the record, from every row's result. */
