@@ -2,6 +2,7 @@ import { readFileSync } from 'node:fs';
 import { MASS_FUNCTION_NAMES } from '../core/halos/index.js';
 import type { DeltaCSpec } from '../core/halos/index.js';
 import { parsePowerTable, TRANSFER_NAMES, type TransferSpec } from '../core/power/index.js';
+import { DELTA_C_SPEC } from '../core/audit/choice-specs.js';
 import { choice, num, type OptionSpec, type Parsed } from './args.js';
 import { CliError } from './cli-error.js';
 
@@ -40,6 +41,6 @@ export function haloChoices(values: Parsed['values']): { massFunction: string; t
     transfer = { kind: tName };
   }
   const dcRaw = values['delta-c'];
-  const deltaC: DeltaCSpec = dcRaw === 'omega-m' ? { kind: 'omega-m' } : { kind: 'constant', value: dcRaw === undefined ? 1.686 : num('delta-c', dcRaw, { min: 1, max: 2.5 }) };
+  const deltaC: DeltaCSpec = dcRaw === 'omega-m' ? { kind: 'omega-m' } : { kind: 'constant', value: dcRaw === undefined ? 1.686 : num('delta-c', dcRaw, { min: DELTA_C_SPEC.min, max: DELTA_C_SPEC.max }) };
   return { massFunction, transfer, deltaC };
 }

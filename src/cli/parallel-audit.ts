@@ -5,7 +5,7 @@ import { auditRow, finishAudit, prepareAudit, runAudit, type AuditChoices, type 
 /**
  * The audit on several cores: rows are dealt round-robin to the main thread and N − 1 worker threads
  * (each builds its own halo model and tables); the main thread then finishes the sample level.
- * Every row draws from its own seeded stream (seed, row), so the result is identical to a serial run.
+ * Every galaxy draws from its own stream seeded by (seed, id), so the result is identical to a serial run.
  */
 interface Job {
   readonly kind: 'baryon-audit-rows';

@@ -1,7 +1,11 @@
 import { validateRecord, RECORD_FORMAT, TOOL_NAME, TOOL_VERSION, type AuditRecord } from '../core/audit/record.js';
 import type { AuditChoices } from '../core/audit/choices.js';
 
-/** The page state that links, saved state and imported JSON carry: an audit record. */
+/**
+ * The page state that links, saved state and imported JSON carry: an audit record. Every way in
+ * (link, saved state, imported file) and the way out to storage pass the core's one schema,
+ * validateRecord (choice-schema.ts), the same code the CLI's --record uses.
+ */
 export function makeRecord(csv: string, choices: AuditChoices): AuditRecord {
   return { tool: TOOL_NAME, version: TOOL_VERSION, format: RECORD_FORMAT, sample_csv: csv, choices };
 }
@@ -43,7 +47,7 @@ export function decodeShare(hash: string): AuditRecord {
   return validateRecord(json);
 }
 
-/** A record from an exported JSON file: the full audit output (with .record) or a bare record. */
+/** A record from an exported JSON file: the full audit output (with .record) or a bare record (the core's schema). */
 export function recordFromJson(text: string): AuditRecord {
   let json: unknown;
   try {
@@ -51,8 +55,7 @@ export function recordFromJson(text: string): AuditRecord {
   } catch (e) {
     throw new RangeError(`not valid JSON (${(e as Error).message})`);
   }
-  const j = json as { record?: unknown };
-  return validateRecord(j && typeof j === 'object' && 'record' in j ? j.record : json);
+  return validateRecord(json);
 }
 
 export const STORAGE_KEY = 'baryon-audit:state';
@@ -71,10 +74,18 @@ export function loadSaved(storage: Storage): { record?: AuditRecord; problem?: s
   }
 }
 
-export function save(storage: Storage, rec: AuditRecord): void {
+/** Saves the state if it passes the record schema (returns false, saving nothing, if it does not). */
+export function save(storage: Storage, rec: AuditRecord): boolean {
+  try {
+    validateRecord(rec);
+  } catch {
+    return false;
+  }
   try {
     storage.setItem(STORAGE_KEY, JSON.stringify(rec));
+    return true;
   } catch {
     /* storage full or disabled: the page still works, nothing to save to */
+    return false;
   }
 }

@@ -83,6 +83,20 @@ describe('CLI contract', () => {
     expect(par.status).toBe(0);
     expect(JSON.parse(par.stdout).galaxies).toEqual(JSON.parse(serial.out).galaxies);
   }, 120000);
+  it('rows the model cannot hold are rejected in every format, never the run, with no NaN', async () => {
+    const f = join(tmp, 'edge.csv');
+    writeFileSync(f, 'id,z,muv,beta,mag_err,log_mstar,log_mstar_err,imf_ref\nLOW,0.05,-20,,,,,\nDUSTY,9,-25,3.9,0.3,,,\nHEAVY,25,,,,13.9,0.5,salpeter\nOK,9,-20,,,,,\n');
+    for (const fmt of ['json', 'csv', 'md']) {
+      const r = await run(['assess', f, '--area-arcmin2', '40', '--z-range', '7:11', '--draws', '200', '--format', fmt]);
+      expect(r.code, r.err).toBe(0);
+      expect(r.out).not.toMatch(/\bNaN\b|Infinity|null/);
+      if (fmt === 'json') {
+        const st = Object.fromEntries(JSON.parse(r.out).galaxies.map((g: { id: string; status: string }) => [g.id, g.status]));
+        expect(st).toMatchObject({ LOW: 'rejected', OK: 'ok' });
+        expect(Object.keys(st)).toHaveLength(4);
+      }
+    }
+  });
   it('every subcommand answers --help', async () => {
     for (const c of ['cosmo', 'halos', 'rarest', 'stars', 'mass', 'assess']) {
       const r = await run([c, '--help']);
@@ -109,6 +123,12 @@ describe('CLI errors: exit 2, one line naming the flag, no stack trace, no NaN',
     [['assess', '/nonexistent.csv', '--area-arcmin2', '40', '--z-range', '7:11'], /cannot read/],
     [['assess', '--demo', '--eps-ref', '2'], /--eps-ref/],
     [['assess', '--record', '/nonexistent.json'], /--record/],
+    [['assess', '--demo', '--imf', 'custom:0.1:50:100'], /^error: --imf .*above 8 Msun/],
+    [['assess', '--demo', '--imf', 'custom:0.1:2.35:0.1000001'], /^error: --imf .*no mass in stars above 8 Msun/],
+    [['assess', '--demo', '--area-arcmin2', '5e-324', '--z-range', '7:11'], /^error: --area-arcmin2 \(areaArcmin2\) must be in \[0\.0001/],
+    [['assess', '--demo', '--delta-c', '99'], /--delta-c/],
+    [['assess', '--demo', '--delta-c', '-1'], /--delta-c/],
+    [['stars', '--imf', 'custom:0.1:1e308:100'], /^error: --imf: .*integrals are not finite/],
     [['nope'], /unknown subcommand/],
     [['cosmo', '--bogus', '1'], /bogus/],
   ];
@@ -124,7 +144,7 @@ describe('CLI errors: exit 2, one line naming the flag, no stack trace, no NaN',
   }
   it('a tampered record names the field', async () => {
     const f = join(tmp, 'bad.json');
-    writeFileSync(f, JSON.stringify({ tool: 'baryon-audit', format: 1, sample_csv: 'id,z\n', choices: { massFunction: 'sheth-tormen' } }));
+    writeFileSync(f, JSON.stringify({ tool: 'baryon-audit', version: '0.1.0', format: 1, sample_csv: 'id,z\n', choices: { massFunction: 'sheth-tormen' } }));
     const r = await run(['assess', '--record', f]);
     expect(r.code).toBe(2);
     expect(r.err).toMatch(/record\.choices\.sfh/);

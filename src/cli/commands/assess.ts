@@ -2,15 +2,22 @@ import { readFileSync } from 'node:fs';
 import {
   auditCsv,
   auditMarkdown,
+  checkChoices,
   DEFAULT_IMFS,
+  imfProblem,
+  normalizeChoices,
   parseSurveys,
+  specByKey,
+  SURVEY_SPECS,
   validateRecord,
   type AuditChoices,
+  type ChoiceSpec,
   type Survey,
 } from '../../core/audit/index.js';
 import { DEMO_SAMPLE_CSV, DEMO_SURVEY } from '../../demo/demo-sample.js';
 import { COSMOLOGY_HELP, COSMOLOGY_OPTIONS, cosmologyFrom, format, num, parse } from '../args.js';
 import { CliError } from '../cli-error.js';
+import { CHOICE_HELP, CHOICE_OPTIONS, flagOfField, numericChoices, specFlag } from '../choice-flags.js';
 import { HALO_HELP, HALO_OPTIONS, haloChoices } from '../halo-options.js';
 import { toJson } from '../output.js';
 import { defaultJobs, runAuditParallel } from '../parallel-audit.js';
@@ -30,12 +37,9 @@ Survey and choices:
   --z-range A:B        survey redshift range
   --survey-name NAME   name of the default survey (default "survey")
   --surveys FILE       CSV of named surveys (name,area_arcmin2,z_min,z_max) for the sample's survey column
-  --eps-ref E          reference efficiency (default 0.3)
-  --quantile Q         rarest-halo quantile (default 0.997)
-  --draws N            Monte Carlo draws per galaxy (default 20000)
-  --seed S             random seed (default 1)
-  --slice-dz D         width of each galaxy's redshift slice (default 1)
-  --formation-z Z      formation redshift for the time budget (default 30)
+  --headline-imf NAME  the IMF of the headline verdict for rows without imf_ref (default: the first
+                       --imf; always compared)
+${CHOICE_HELP}
   --z-bins A:B,C:D     redshift bins for the sample densities (default: the survey range)
   --jobs N             worker threads for large samples (default: cores, for ≥ 24 rows; same numbers as 1)
 
@@ -53,14 +57,22 @@ function readText(path: string, flag: string): string {
   }
 }
 
-function range(flag: string, raw: string): [number, number] {
+const AREA = specByKey(SURVEY_SPECS, 'areaArcmin2');
+const Z_MIN = specByKey(SURVEY_SPECS, 'zMin');
+const Z_MAX = specByKey(SURVEY_SPECS, 'zMax');
+
+/** `A:B` checked against two specs (the survey range, or a redshift bin). */
+function range(flag: string, raw: string, lo: ChoiceSpec, hi: ChoiceSpec): [number, number] {
   const parts = raw.split(':');
-  if (parts.length !== 2) throw new CliError(`--${flag}: "${raw}" must be A:B`);
-  const a = num(flag, parts[0], { min: 0, max: 30 });
-  const b = num(flag, parts[1], { min: 0, max: 30 });
-  if (!(b > a)) throw new CliError(`--${flag}: need A < B (got ${raw})`);
+  if (parts.length !== 2) throw new CliError(`${flag}: "${raw}" must be A:B`);
+  const a = specFlag(lo, parts[0], flag);
+  const b = specFlag(hi, parts[1], flag);
+  if (!(b > a)) throw new CliError(`${flag}: need A < B (got ${raw})`);
   return [a, b];
 }
+
+/** Flags that only make sense for a new audit; beside --record they are refused, not ignored. */
+const RECORD_ALLOWS = new Set(['record', 'format', 'jobs', 'help']);
 
 export async function runAssess(argv: string[]): Promise<string> {
   const { values, positionals } = parse(
@@ -72,12 +84,8 @@ export async function runAssess(argv: string[]): Promise<string> {
       'z-range': { type: 'string' },
       'survey-name': { type: 'string' },
       surveys: { type: 'string' },
-      'eps-ref': { type: 'string' },
-      quantile: { type: 'string' },
-      draws: { type: 'string' },
-      seed: { type: 'string' },
-      'slice-dz': { type: 'string' },
-      'formation-z': { type: 'string' },
+      'headline-imf': { type: 'string' },
+      ...CHOICE_OPTIONS,
       'z-bins': { type: 'string' },
       jobs: { type: 'string' },
       ...STAR_OPTIONS,
@@ -91,6 +99,10 @@ export async function runAssess(argv: string[]): Promise<string> {
   let csv: string;
   let choices: AuditChoices;
   if (typeof values.record === 'string') {
+    const beside = Object.keys(values).filter((k) => values[k] !== undefined && !RECORD_ALLOWS.has(k));
+    if (beside.length || positionals.length) {
+      throw new CliError(`--record re-runs the record's own choices and sample; remove ${[...beside.map((k) => '--' + k), ...positionals].join(', ')} (or run a new audit without --record)`);
+    }
     let rec;
     try {
       rec = validateRecord(JSON.parse(readText(values.record, '--record')));
@@ -106,12 +118,14 @@ export async function runAssess(argv: string[]): Promise<string> {
     if (!demo && positionals.length === 0) throw new CliError('give a sample file (SAMPLE.csv), --demo or --record FILE');
     csv = demo ? DEMO_SAMPLE_CSV : readText(positionals[0], 'sample');
     let survey: Survey;
-    if (demo && values['area-arcmin2'] === undefined) survey = DEMO_SURVEY;
+    if (demo && values['area-arcmin2'] === undefined && values['z-range'] === undefined) survey = DEMO_SURVEY;
     else {
       if (values['area-arcmin2'] === undefined) throw new CliError('--area-arcmin2 is required (survey area in arcmin^2)');
       if (values['z-range'] === undefined) throw new CliError('--z-range A:B is required (survey redshift range)');
-      const [zMin, zMax] = range('z-range', String(values['z-range']));
-      survey = { name: typeof values['survey-name'] === 'string' ? values['survey-name'] : 'survey', areaArcmin2: num('area-arcmin2', values['area-arcmin2'], { gt: 0, max: 148510660.5 }), zMin, zMax };
+      const [zMin, zMax] = range('--z-range', String(values['z-range']), Z_MIN, Z_MAX);
+      const name = typeof values['survey-name'] === 'string' ? values['survey-name'].trim() : 'survey';
+      if (!name) throw new CliError('--survey-name: the name is empty');
+      survey = { name, areaArcmin2: specFlag(AREA, values['area-arcmin2']), zMin, zMax };
     }
     let surveys: Survey[] = [];
     if (typeof values.surveys === 'string') {
@@ -120,29 +134,33 @@ export async function runAssess(argv: string[]): Promise<string> {
       surveys = parsed.surveys;
     }
     const halo = haloChoices(values);
-    const draws = num('draws', values.draws ?? '20000', { min: 100, max: 1e6 });
-    const seed = num('seed', values.seed ?? '1', { min: -(2 ** 31) + 1, max: 2 ** 31 - 1 });
-    if (!Number.isInteger(draws)) throw new CliError(`--draws must be a whole number (got ${values.draws})`);
-    if (!Number.isInteger(seed)) throw new CliError(`--seed must be a whole number (got ${values.seed})`);
     sfhFrom(values);
-    choices = {
+    const imfs = imfList(values, DEFAULT_IMFS);
+    let headlineImf: string | undefined;
+    if (values['headline-imf'] !== undefined) {
+      headlineImf = String(values['headline-imf']).trim();
+      const p = imfProblem(headlineImf);
+      if (p) throw new CliError(`--headline-imf: ${p}`);
+    }
+    choices = normalizeChoices({
       cosmology: cosmologyFrom(values),
       massFunction: halo.massFunction,
       transfer: halo.transfer,
       deltaC: halo.deltaC,
-      imfs: imfList(values, DEFAULT_IMFS),
+      imfs,
+      ...(headlineImf !== undefined ? { headlineImf } : {}),
       sfh: typeof values.sfh === 'string' ? values.sfh : 'constant',
-      metallicity: num('metallicity', values.metallicity ?? '0.02', { min: 1e-4, max: 0.03 }),
-      epsRef: num('eps-ref', values['eps-ref'] ?? '0.3', { min: 1e-4, max: 1 }),
-      quantile: num('quantile', values.quantile ?? '0.997', { gt: 0, lt: 1 }),
-      draws,
-      seed,
-      sliceDz: num('slice-dz', values['slice-dz'] ?? '1', { min: 0.1, max: 5 }),
-      formationZ: num('formation-z', values['formation-z'] ?? '30', { gt: 0, max: 100 }),
+      ...numericChoices(values),
       survey,
       surveys,
-      zBins: typeof values['z-bins'] === 'string' ? String(values['z-bins']).split(',').map((b) => range('z-bins', b)) : [],
-    };
+      zBins: typeof values['z-bins'] === 'string' ? String(values['z-bins']).split(',').map((b) => range('--z-bins', b, Z_MIN, Z_MAX)) : [],
+    });
+    const problems = checkChoices(choices);
+    if (problems.length) {
+      const p = problems[0];
+      const flag = flagOfField(p.field);
+      throw new CliError(`${flag ? flag + ' ' : ''}(${p.field}) ${p.reason}`);
+    }
   }
   const rowsGuess = csv.split('\n').length - 1;
   const jobs = values.jobs === undefined ? defaultJobs(rowsGuess) : num('jobs', values.jobs, { min: 1, max: 64 });

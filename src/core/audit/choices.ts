@@ -1,6 +1,7 @@
 import type { CosmologyParams } from '../cosmology/params.js';
 import type { DeltaCSpec } from '../halos/collapse-threshold.js';
 import type { TransferSpec } from '../power/transfer.js';
+import { checkChoices, problemText } from './choice-schema.js';
 import type { Survey } from './survey.js';
 
 /** Every choice an audit depends on; with the sample text it reproduces the numbers exactly. */
@@ -9,9 +10,12 @@ export interface AuditChoices {
   readonly massFunction: string;
   readonly transfer: TransferSpec;
   readonly deltaC: DeltaCSpec;
-  /** IMFs compared, in order; the first is the headline IMF for rows without imf_ref. */
+  /** IMFs compared, in order. */
   readonly imfs: readonly string[];
-  /** Headline IMF for rows given as light (default: the first of imfs); always compared. */
+  /**
+   * The headline IMF for rows without imf_ref (default: the first of `imfs`); it is always compared
+   * (normalizeChoices adds it to `imfs` when missing).
+   */
   readonly headlineImf?: string;
   /** Star-formation history, as text (see parseSfh). */
   readonly sfh: string;
@@ -39,14 +43,14 @@ export const DEFAULT_IMFS = ['salpeter', 'chabrier', 'kroupa', 'top-heavy-flat',
 /** Rest wavelength at which a reported mass is rescaled between IMFs "at the same light", μm. */
 export const RESCALE_REST_UM = 0.4;
 
+/** Every problem with the choices as "field: reason" lines (the schema of choice-schema.ts). */
 export function validateChoices(c: AuditChoices): string[] {
-  const e: string[] = [];
-  if (!(c.epsRef >= 1e-4 && c.epsRef <= 1)) e.push(`--eps-ref must lie in [1e-4, 1] (got ${c.epsRef})`);
-  if (!(c.quantile > 0 && c.quantile < 1)) e.push(`--quantile must lie strictly between 0 and 1 (got ${c.quantile})`);
-  if (!(Number.isInteger(c.draws) && c.draws >= 100 && c.draws <= 1e6)) e.push(`--draws must be a whole number in [100, 1e6] (got ${c.draws})`);
-  if (!(Number.isInteger(c.seed) && Math.abs(c.seed) < 2 ** 31)) e.push(`--seed must be a whole number with |seed| < 2^31 (got ${c.seed})`);
-  if (!(c.sliceDz >= 0.1 && c.sliceDz <= 5)) e.push(`--slice-dz must lie in [0.1, 5] (got ${c.sliceDz})`);
-  if (!(c.formationZ > 0 && c.formationZ <= 100)) e.push(`--formation-z must lie in (0, 100] (got ${c.formationZ})`);
-  if (!c.imfs.length) e.push('--imf: at least one IMF');
-  return e;
+  return problemText(checkChoices(c));
+}
+
+/** The choices with headlineImf set (default: the first of imfs) and always among the compared IMFs. */
+export function normalizeChoices(c: AuditChoices): AuditChoices & { readonly headlineImf: string } {
+  const headlineImf = c.headlineImf ?? c.imfs[0];
+  const imfs = c.imfs.includes(headlineImf) ? c.imfs : [headlineImf, ...c.imfs];
+  return { ...c, imfs, headlineImf };
 }

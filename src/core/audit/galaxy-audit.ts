@@ -10,7 +10,7 @@ import type { CeilingTable } from './ceiling.js';
 import { drawGalaxy, type GalaxyDraws } from './galaxy-draws.js';
 import { imfStatistics, type ImfResult, type ImfStatistics, type SharedDraws } from './imf-statistics.js';
 import { rescaleBase, rescalePosition } from './imf-rescale.js';
-import { mixSeed } from './random.js';
+import { idSeed } from './random.js';
 import type { GalaxyInput } from './sample.js';
 import { logAccretedBaryons } from './time-budget.js';
 import { verdictFor, type Attribution, type Verdict } from './verdict.js';
@@ -194,7 +194,7 @@ export function auditGalaxy(ctx: AuditContext, g: GalaxyInput, index: number): G
   const { choices, halo } = ctx;
   const fb = halo.baryonFraction;
   const n = choices.draws;
-  const seed = mixSeed(choices.seed, index);
+  const seed = idSeed(choices.seed, g.id);
   const d = drawGalaxy(g, n, seed, halo.background);
   const ceil = ctx.ceilingFor(g.survey);
   const sigmaDm = ctx.sigmaDmFor(g.survey, g.z);

@@ -1,14 +1,14 @@
 import { makeHaloModel, type HaloModel } from '../halos/halo-model.js';
 import { makePopulationCache, type PopulationCache } from '../stars/population-cache.js';
-import { IMF_NAMES, resolveImf } from '../stars/imf-presets.js';
+import { isKnownImf } from './imf-check.js';
 import { parseSfh } from '../stars/sfh.js';
 import { makeCeilingTable, type CeilingTable } from './ceiling.js';
-import { validateChoices, type AuditChoices } from './choices.js';
+import { normalizeChoices, validateChoices, type AuditChoices } from './choices.js';
 import { boxSigmaDm } from './cosmic-variance.js';
 import { auditGalaxy, type AuditContext, type GalaxyAudit } from './galaxy-audit.js';
 import { parseSample, type ParsedSample, type RowProblem } from './sample.js';
 import { binBudget, type BinBudget, type BudgetMember } from './sample-budget.js';
-import { validateSurvey, type Survey } from './survey.js';
+import type { Survey } from './survey.js';
 import type { Verdict } from './verdict.js';
 
 import { RECORD_FORMAT, TOOL_NAME, TOOL_VERSION, type AuditRecord } from './record.js';
@@ -35,15 +35,7 @@ export interface AuditResult {
   readonly record: AuditRecord;
 }
 
-const knownImf = (name: string): boolean => {
-  if (IMF_NAMES.includes(name)) return true;
-  try {
-    resolveImf(name);
-    return true;
-  } catch {
-    return false;
-  }
-};
+const knownImf = isKnownImf;
 
 /** Parsed sample plus the shared machinery (halo model, population tables, ceilings) of one audit. */
 export interface PreparedAudit {
@@ -79,17 +71,11 @@ function envFor(choices: AuditChoices): Env {
 }
 
 /** Validates the choices (throws RangeError naming every bad one), parses the sample, builds the shared parts. */
-export function prepareAudit(sampleCsv: string, choices: AuditChoices): PreparedAudit {
-  const problems = [...validateChoices(choices), ...validateSurvey(choices.survey, 'default survey'), ...choices.surveys.flatMap((s) => validateSurvey(s))];
-  for (const imf of choices.imfs) if (!knownImf(imf)) problems.push(`--imf: unknown IMF "${imf}"`);
-  if (choices.headlineImf !== undefined && !knownImf(choices.headlineImf)) problems.push(`--headline-imf: unknown IMF "${choices.headlineImf}"`);
-  let sfh;
-  try {
-    sfh = parseSfh(choices.sfh);
-  } catch (e) {
-    problems.push(`--sfh: ${(e as Error).message}`);
-  }
-  if (problems.length || !sfh) throw new RangeError(problems.join('; '));
+export function prepareAudit(sampleCsv: string, given: AuditChoices): PreparedAudit {
+  const problems = validateChoices(given);
+  if (problems.length) throw new RangeError(problems.join('; '));
+  const choices = normalizeChoices(given);
+  const sfh = parseSfh(choices.sfh);
   const parsed = parseSample(sampleCsv, knownImf);
   const env = envFor(choices);
   const { halo, cache } = env;
@@ -138,6 +124,23 @@ export function prepareAudit(sampleCsv: string, choices: AuditChoices): Prepared
   return { sampleCsv, choices, parsed, ctx };
 }
 
+/** The path of the first number in `v` that is NaN or ±Infinity (undefined if none). */
+export function firstNonFinite(v: unknown, path: string): string | undefined {
+  if (typeof v === 'number') return Number.isFinite(v) ? undefined : path || '(value)';
+  if (Array.isArray(v)) {
+    for (let i = 0; i < v.length; i++) {
+      const p = firstNonFinite(v[i], `${path}[${i}]`);
+      if (p !== undefined) return p;
+    }
+  } else if (v && typeof v === 'object') {
+    for (const [k, x] of Object.entries(v)) {
+      const p = firstNonFinite(x, path ? `${path}.${k}` : k);
+      if (p !== undefined) return p;
+    }
+  }
+  return undefined;
+}
+
 /** Audits one parsed row (by its position in parsed.rows). */
 export function auditRow(prep: PreparedAudit, index: number): GalaxyRow {
   const r = prep.parsed.rows[index];
@@ -148,12 +151,19 @@ export function auditRow(prep: PreparedAudit, index: number): GalaxyRow {
   if (r.galaxy!.survey && !named.has(r.galaxy!.survey)) {
     return { ...base, status: 'rejected', errors: [{ row: r.row, column: 'survey', reason: `"${r.galaxy!.survey}" is not in the surveys file (known: ${[...named].join(', ') || 'none'})` }] };
   }
+  let audit: GalaxyAudit;
   try {
-    return { ...base, status: 'ok', errors: [], ...auditGalaxy(prep.ctx, r.galaxy!, r.row) };
+    audit = auditGalaxy(prep.ctx, r.galaxy!, r.row);
   } catch (e) {
-    if (!(e instanceof RangeError)) throw e;
-    return { ...base, status: 'rejected', errors: [{ row: r.row, column: '(model)', reason: e.message }] };
+    // Whatever fails while computing one galaxy rejects that galaxy, never the run.
+    const reason = e instanceof Error ? e.message : String(e);
+    return { ...base, status: 'rejected', errors: [{ row: r.row, column: '(model)', reason: `the audit of this galaxy failed: ${reason}` }] };
   }
+  const bad = firstNonFinite(audit, '');
+  if (bad !== undefined) {
+    return { ...base, status: 'rejected', errors: [{ row: r.row, column: '(model)', reason: `the audit of this galaxy gave a non-finite ${bad}; this row lies outside the range where the model's tables hold, so it is not reported` }] };
+  }
+  return { ...base, status: 'ok', errors: [], ...audit };
 }
 
 /** Sample-level budgets and the record, from every row's result. */

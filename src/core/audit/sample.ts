@@ -14,6 +14,15 @@ export const KNOWN_COLUMNS = [
   'log_mstar_err', 'log_mstar_alt', 'mag_err', 'beta', 'beta_err', 'survey', 'notes',
 ] as const;
 
+/**
+ * The redshifts a galaxy may have. Above 30 the halo and ceiling tables end. Below 0.25 the slice's
+ * box has no transverse size for the cosmic variance (σ_dm is evaluated on a 0.25 grid in z), and
+ * the audit is made for early galaxies anyway.
+ */
+export const GALAXY_Z = { min: 0.25, max: 30, why: 'the halo tables reach z = 30, and the cosmic-variance box needs z ≥ 0.25' } as const;
+/** The Monte Carlo redshift draws start at z = 0.05, so a second solution must lie above it. */
+export const Z_ALT_MIN = 0.05;
+
 const NUMERIC = ['z', 'z_lo', 'z_hi', 'z_alt', 'p_alt', 'muv', 'm_ab', 'lambda_obs_um', 'log_mstar', 'log_mstar_err', 'log_mstar_alt', 'mag_err', 'beta', 'beta_err'] as const;
 type NumericColumn = (typeof NUMERIC)[number];
 
@@ -113,11 +122,10 @@ export function parseSample(text: string, knownImfs: (name: string) => boolean):
     else if (seenIds.has(id)) bad('id', `"${id}" repeats row ${seenIds.get(id)}`);
     else seenIds.set(id, r);
     if (raw.z !== undefined && num.z === undefined && !errors.some((e) => e.column === 'z')) bad('z', 'is empty (required)');
-    if (num.z !== undefined && !(num.z > 0)) bad('z', `must be > 0 (got ${raw.z.trim()})`);
-    if (num.z !== undefined && num.z > 30) bad('z', `must be ≤ 30 (got ${raw.z.trim()})`);
+    if (num.z !== undefined && !(num.z >= GALAXY_Z.min && num.z <= GALAXY_Z.max)) bad('z', `must lie in [${GALAXY_Z.min}, ${GALAXY_Z.max}] (got ${raw.z.trim()}): ${GALAXY_Z.why}`);
     if (num.z_lo !== undefined && num.z !== undefined && !(num.z_lo <= num.z && num.z_lo >= 0)) bad('z_lo', `must lie in [0, z] (got ${num.z_lo} with z = ${num.z})`);
-    if (num.z_hi !== undefined && num.z !== undefined && !(num.z_hi >= num.z && num.z_hi <= 30)) bad('z_hi', `must lie in [z, 30] (got ${num.z_hi} with z = ${num.z})`);
-    if (num.z_alt !== undefined && !(num.z_alt > 0 && num.z_alt <= 30)) bad('z_alt', `must lie in (0, 30] (got ${num.z_alt})`);
+    if (num.z_hi !== undefined && num.z !== undefined && !(num.z_hi >= num.z && num.z_hi <= GALAXY_Z.max)) bad('z_hi', `must lie in [z, ${GALAXY_Z.max}] (got ${num.z_hi} with z = ${num.z})`);
+    if (num.z_alt !== undefined && !(num.z_alt >= Z_ALT_MIN && num.z_alt <= GALAXY_Z.max)) bad('z_alt', `must lie in [${Z_ALT_MIN}, ${GALAXY_Z.max}] (got ${num.z_alt}): the redshift draws start at z = ${Z_ALT_MIN}`);
     if (num.p_alt !== undefined && !(num.p_alt >= 0 && num.p_alt <= 1)) bad('p_alt', `must lie in [0, 1] (got ${raw.p_alt.trim()})`);
     if (num.p_alt !== undefined && num.p_alt > 0 && num.z_alt === undefined) bad('p_alt', 'is given without z_alt');
     if (num.z_alt !== undefined && num.p_alt === undefined) bad('z_alt', 'is given without p_alt');

@@ -1,4 +1,5 @@
 import Papa from 'papaparse';
+import { checkSurvey } from './choice-schema.js';
 import { parseNumberCell } from './sample.js';
 
 /** A survey field: area in arcmin² and the redshift range it searched. */
@@ -9,12 +10,9 @@ export interface Survey {
   readonly zMax: number;
 }
 
+/** Problems with a survey, each naming it and the field (the ranges of SURVEY_SPECS). */
 export function validateSurvey(s: Survey, where = 'survey'): string[] {
-  const out: string[] = [];
-  if (!s.name) out.push(`${where}: name is empty`);
-  if (!(s.areaArcmin2 > 0 && s.areaArcmin2 <= 148510660.5)) out.push(`${where} "${s.name}": area must lie in (0, 148510660.5] arcmin² (got ${s.areaArcmin2})`);
-  if (!(s.zMin >= 0 && s.zMax > s.zMin && s.zMax <= 30)) out.push(`${where} "${s.name}": needs 0 ≤ z_min < z_max ≤ 30 (got ${s.zMin}, ${s.zMax})`);
-  return out;
+  return checkSurvey(s, where).map((p) => `${p.field}${s && typeof s.name === 'string' && s.name ? ` ("${s.name}")` : ''}: ${p.reason}`);
 }
 
 /**

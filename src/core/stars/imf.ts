@@ -60,7 +60,14 @@ export function makeImf(name: string, segments: readonly ImfSegment[]): Imf {
     raw.push((raw[i - 1] * shape(segments[i - 1], m)) / shape(segments[i], m));
   }
   let mass = 0;
-  segments.forEach((s, i) => (mass += raw[i] * segIntegral(s, s.mLo, s.mHi, 1)));
+  let number = 0;
+  segments.forEach((s, i) => {
+    mass += raw[i] * segIntegral(s, s.mLo, s.mHi, 1);
+    number += raw[i] * segIntegral(s, s.mLo, s.mHi, 0);
+  });
+  if (!(raw.every((c) => Number.isFinite(c) && c > 0) && Number.isFinite(mass) && mass > 0 && Number.isFinite(number) && number > 0)) {
+    throw new RangeError(`IMF "${name}": its number and mass integrals are not finite numbers (a slope is too steep for the mass range)`);
+  }
   return {
     name,
     segments,
