@@ -19,6 +19,8 @@ export interface CeilingTable {
   readonly areaArcmin2: number;
   readonly quantile: number;
   readonly sliceDz: number;
+  /** Highest galaxy redshift the table covers. */
+  readonly zMaxTable: number;
   /** Halo mass (Msun) of the most massive halo at quantile q in the slice around z. */
   haloMassAtQuantile(z: number): number;
   /** log10 of haloMassAtQuantile (no power of ten: for the Monte Carlo loop). */
@@ -26,6 +28,8 @@ export interface CeilingTable {
   log10HaloMassAtQuantileCv(z: number, sigmaDm: number): number;
   /** Halo mass at any other quantile q2 of the same slice distribution (for figure bands). */
   haloMassAt(z: number, q2: number): number;
+  /** log10 of the mass above which N(>M) = count haloes are expected in the slice, as a function of z, nodes cached (q2 = e^−count). */
+  log10HaloMassAtCountFn(count: number): (z: number) => number;
   /** Same with cosmic variance widening, given σ_dm of the slice at z. */
   haloMassAtQuantileCv(z: number, sigmaDm: number): number;
   /** Expected number of haloes above M in the slice around z (nearest grid centre). */
@@ -160,11 +164,17 @@ export function makeCeilingTable(halo: HaloModel, areaArcmin2: number, quantile:
     areaArcmin2,
     quantile,
     sliceDz,
+    zMaxTable: zHi - half,
     haloMassAtQuantile: (z) => interp(z, poissonCached),
     haloMassAt: (z, q2) => {
       if (!(q2 > 0 && q2 < 1)) throw new RangeError(`quantile must lie strictly between 0 and 1 (got ${q2})`);
       const t = -Math.log(q2);
       return interp(z, (jc) => poissonLogM(jc, t));
+    },
+    log10HaloMassAtCountFn: (t) => {
+      if (!(t > 0) || !Number.isFinite(t)) throw new RangeError(`expected count must be finite and > 0 (got ${t})`);
+      const nodes = nodeArray((jc) => poissonLogM(jc, t));
+      return (z) => interpLog(z, nodes);
     },
     haloMassAtQuantileCv: (z, sigmaDm) => interp(z, cvFor(sigmaDm)),
     log10HaloMassAtQuantile: (z) => interpLog(z, poissonCached),

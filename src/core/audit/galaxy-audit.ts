@@ -12,6 +12,7 @@ import { imfStatistics, type ImfResult, type ImfStatistics, type SharedDraws } f
 import { rescaleBase, rescalePosition } from './imf-rescale.js';
 import { idSeed } from './random.js';
 import type { GalaxyInput } from './sample.js';
+import { reconcileGalaxy, type Reconciliation } from './reconcile.js';
 import { logAccretedBaryons } from './time-budget.js';
 import { verdictFor, type Attribution, type Verdict } from './verdict.js';
 
@@ -56,6 +57,8 @@ export interface GalaxyAudit {
   };
   readonly time_budget: TimeBudget | null;
   readonly redshift_checks: { readonly z: number; readonly kind: 'z_alt' | 'z_lo'; readonly eps_required_median: number; readonly verdict: Verdict }[];
+  /** What it would take (strained or over budget only): one entry for ε = 1 and one for ε_ref. */
+  readonly reconcile: Reconciliation[];
   readonly draws_used: number;
   readonly draws_excluded: number;
   readonly notes: string[];
@@ -67,6 +70,8 @@ export interface AuditContext {
   readonly sfh: Sfh;
   readonly choices: AuditChoices;
   ceilingFor(surveyName: string | undefined): CeilingTable;
+  /** Area (arcmin²) of the named survey, or of the default one. */
+  areaFor(surveyName: string | undefined): number;
   sigmaDmFor(surveyName: string | undefined, z: number): number;
 }
 
@@ -228,6 +233,33 @@ export function auditGalaxy(ctx: AuditContext, g: GalaxyInput, index: number): G
     verdictEddington: h.verdict_debiased,
     eddingtonShiftDex: h.eddington_shift_dex,
   });
+  const reconcile =
+    h.verdict === 'within budget'
+      ? []
+      : reconcileGalaxy(
+          {
+            g,
+            halo,
+            ceiling: ceil,
+            quantile: choices.quantile,
+            areaArcmin2: ctx.areaFor(g.survey),
+            sliceDz: choices.sliceDz,
+            z: Float64Array.from(valid, (k) => d.z[k]),
+            base,
+            gx,
+            gy,
+            headTable: tableOf(headline),
+            tableOf,
+            drawsAtRedshift: (zf) => {
+              const df = drawGalaxy(g, Math.min(n, 2000), seed, halo.background, { z: zf, alt: false });
+              const ok = validDraws(g, df);
+              if (!ok.length) return undefined;
+              const cell = drawGrid(g, df, ok, tableOf(headline), refTable);
+              return { base: cell.base, gx: cell.x, gy: cell.y };
+            },
+          },
+          [...new Set([1, choices.epsRef])],
+        );
   const mCeil = ceil.haloMassAtQuantile(g.z);
   const [s0, s1] = ceil.sliceLimits(g.z);
   return {
@@ -256,6 +288,7 @@ export function auditGalaxy(ctx: AuditContext, g: GalaxyInput, index: number): G
     },
     time_budget: timeBudgetOf(ctx, g, stats[headline], acc, notes),
     redshift_checks: checks,
+    reconcile,
     draws_used: valid.length,
     draws_excluded: d.excluded,
     notes,

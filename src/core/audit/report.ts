@@ -4,6 +4,7 @@ import type { AuditChoices } from './choices.js';
 import { citeInText, referencesFor } from './citations.js';
 import type { AuditResult, GalaxyRow } from './run-audit.js';
 import type { BinBudget } from './sample-budget.js';
+import type { Reconciliation } from './reconcile.js';
 import { verdictFor } from './verdict.js';
 
 const fmtE = (x: number): string => (x >= 999 ? '> 999' : x >= 10 ? x.toFixed(0) : x >= 0.1 ? x.toFixed(2) : x.toExponential(1));
@@ -29,6 +30,16 @@ export function auditCsv(r: AuditResult): string {
       formed_mass_msun: g.time_budget?.formed_mass_msun ?? '',
       accreted_baryons_msun: g.time_budget?.accreted_baryons_msun ?? '',
     };
+    for (const rc of g.reconcile ?? []) {
+      const k = rc.eps === 1 ? 'eps1' : 'eps_ref';
+      o[`reconcile_${k}_z_max`] = rc.z_max ?? '';
+      o[`reconcile_${k}_imf_slope_max`] = rc.imf_slope_max ?? '';
+      o[`reconcile_${k}_sigma8_min`] = rc.sigma8_min ?? '';
+      o[`reconcile_${k}_power_boost_min`] = rc.power_boost_min ?? '';
+      o[`reconcile_${k}_area_min_arcmin2`] = rc.area_min_arcmin2 ?? '';
+      o[`reconcile_${k}_expected_hosts`] = rc.expected_hosts;
+      o[`reconcile_${k}_notes`] = Object.entries(rc.reasons).map(([a, t]) => `${a}: ${t}`).join('; ');
+    }
     for (const i of imfs) {
       const x = g.imf?.[i];
       o[`${i}_verdict`] = x?.verdict ?? '';
@@ -78,6 +89,31 @@ function timeBudgetSentence(g: GalaxyRow): string {
   );
 }
 
+const sig = (x: number, d = 2): string => Number(x.toPrecision(d)).toString();
+
+/**
+ * "It would fit … if any one of these held: …" for one reconciliation entry (our wording); for a
+ * galaxy that already meets that ε, the limits within which it keeps meeting it.
+ */
+export function reconcileSentence(rc: Reconciliation, epsRef: number, epsMedian: number): string {
+  const fits = epsMedian <= rc.eps;
+  const goal = rc.eps === 1 ? 'within ΛCDM’s baryons (ε ≤ 1)' : `within the reference efficiency (ε ≤ ${epsRef})`;
+  const hosts = `${sig(rc.expected_hosts)} such ${rc.expected_hosts === 1 ? 'host is' : 'hosts are'} expected in this field`;
+  const parts: string[] = [];
+  if (fits) {
+    if (rc.z_max !== null && !rc.reasons.z_max) parts.push(`above z = ${rc.z_max.toFixed(2)}`);
+    if (rc.sigma8_min !== null && !rc.reasons.sigma8_min) parts.push(`below σ8 = ${rc.sigma8_min.toFixed(3)}`);
+    if (rc.area_min_arcmin2 !== null && !rc.reasons.area_min_arcmin2) parts.push(`in a field smaller than ${sig(rc.area_min_arcmin2, 3)} arcmin²`);
+    return ` It fits ${goal} as it is${parts.length ? `, and would stop fitting ${parts.join(', ')}` : ''} (${hosts}).`;
+  }
+  if (rc.z_max !== null) parts.push(`z ≤ ${rc.z_max.toFixed(2)}`);
+  if (rc.imf_slope_max !== null && !rc.reasons.imf_slope_max) parts.push(`an IMF slope above 0.5 Msun of ${rc.imf_slope_max.toFixed(2)} or flatter`);
+  if (rc.sigma8_min !== null && rc.power_boost_min !== null) parts.push(`σ8 ≥ ${rc.sigma8_min.toFixed(3)}, i.e. ${rc.power_boost_min.toFixed(2)}× the power at its host's scale`);
+  if (rc.area_min_arcmin2 !== null) parts.push(`a field of ≥ ${sig(rc.area_min_arcmin2, 3)} arcmin²`);
+  if (!parts.length) return ` No single change searched would bring it ${goal}; ${hosts}.`;
+  return ` It would fit ${goal} if any one of these held: ${parts.join('; ')} — ${hosts}.`;
+}
+
 function galaxyParagraph(g: GalaxyRow, r: AuditResult): string {
   const c = r.record.choices;
   if (g.status === 'rejected') return `**${g.id || `row ${g.row}`}**: not audited. ${g.errors.map((e) => `${e.column}: ${e.reason}`).join('; ')}.`;
@@ -98,6 +134,7 @@ function galaxyParagraph(g: GalaxyRow, r: AuditResult): string {
     timeBudgetSentence(g) +
     (rz ? ` Redshift checks: ${rz}.` : '') +
     attributionSentence(g) +
+    (g.reconcile ?? []).map((rc) => reconcileSentence(rc, c.epsRef, h.eps_required_median)).join('') +
     (g.notes!.length ? ` Notes: ${g.notes!.join('; ')}.` : '')
   );
 }

@@ -105,6 +105,7 @@ export function prepareAudit(sampleCsv: string, given: AuditChoices): PreparedAu
       }
       return c;
     },
+    areaFor: (name) => surveyOf(name).areaArcmin2,
     sigmaDmFor: (name, z) => {
       const s = surveyOf(name);
       const zr = Math.round(z * 4) / 4; // σ_dm changes slowly with z: evaluated on a 0.25 grid
