@@ -89,7 +89,14 @@ describe('CLI contract', () => {
     for (const fmt of ['json', 'csv', 'md']) {
       const r = await run(['assess', f, '--area-arcmin2', '40', '--z-range', '7:11', '--draws', '200', '--format', fmt]);
       expect(r.code, r.err).toBe(0);
-      expect(r.out).not.toMatch(/\bNaN\b|Infinity|null/);
+      expect(r.out).not.toMatch(/\bNaN\b|Infinity/);
+      // null appears only where a reconciliation axis has no answer, and then its reason says why
+      if (fmt === 'json') {
+        for (const g of JSON.parse(r.out).galaxies) {
+          for (const rc of g.reconcile ?? []) for (const [k, v] of Object.entries(rc)) if (v === null) expect(rc.reasons[k]).toBeTruthy();
+          expect(JSON.stringify({ ...g, reconcile: [] })).not.toMatch(/null/);
+        }
+      } else expect(r.out).not.toMatch(/null/);
       if (fmt === 'json') {
         const st = Object.fromEntries(JSON.parse(r.out).galaxies.map((g: { id: string; status: string }) => [g.id, g.status]));
         expect(st).toMatchObject({ LOW: 'rejected', OK: 'ok' });

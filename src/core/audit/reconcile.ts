@@ -218,6 +218,7 @@ export function reconcileGalaxy(x: ReconcileInputs, targets: readonly number[]):
     const s8 = keep('sigma8_min', sigma8Axis(x, lEps, lfb, lm, logCeil));
     const area = keep('area_min_arcmin2', areaAxis(x, lEps, lfb, lm));
     const sigma8 = x.halo.options.cosmology.sigma8;
+    if (s8 === null) reasons.power_boost_min = reasons.sigma8_min;
     return {
       eps,
       z_max: zMax,
