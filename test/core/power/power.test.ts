@@ -1,5 +1,6 @@
 import gamma from '@stdlib/math-base-special-gamma';
 import { describe, expect, it } from 'vitest';
+import ref from '../../fixtures/scipy/regression.json';
 import { PLANCK18 } from '../../../src/core/cosmology/index.js';
 import {
   eisensteinHuScales,
@@ -21,23 +22,24 @@ describe('Eisenstein & Hu 1998 transfer function', () => {
   });
 
   it('EH98 test cosmology (Ω0 = 0.3, Ωb = 0.045, h = 0.7, T = 2.728 K): s, z_d, α_c, β_c match an independent scipy implementation to 1e-5', () => {
-    // Regression values computed outside this project from the published equations: 149.935 Mpc, 1020.331, 0.778559, 1.168847.
-    const s = eisensteinHuScales({ ...P, h0: 70, omegaM: 0.3, omegaB: 0.045, tcmbK: 2.728 });
-    expect(rel(s.soundHorizonMpc, 149.935)).toBeLessThan(1e-5);
-    expect(rel(s.zDrag, 1020.331)).toBeLessThan(1e-5);
-    expect(rel(s.alphaC, 0.778559)).toBeLessThan(1e-5);
-    expect(rel(s.betaC, 1.168847)).toBeLessThan(1e-5);
+    // Regression values from test/fixtures/scipy (generate.py: the published equations written in scipy).
+    const want = ref.eh98_test_cosmology;
+    const s = eisensteinHuScales({ ...P, ...want.params });
+    expect(rel(s.soundHorizonMpc, want.sound_horizon_mpc)).toBeLessThan(1e-5);
+    expect(rel(s.zDrag, want.z_drag)).toBeLessThan(1e-5);
+    expect(rel(s.alphaC, want.alpha_c)).toBeLessThan(1e-5);
+    expect(rel(s.betaC, want.beta_c)).toBeLessThan(1e-5);
   });
 
   it('full, no-wiggle and BBKS T(k) at k = 0.01, 0.1, 1 /Mpc match an independent scipy implementation to 1e-5', () => {
-    // Regression values (Planck 2018 BAO-column parameters) computed outside this project from the same published equations.
+    // Regression values (Planck 2018 preset) from test/fixtures/scipy, the same published equations written in scipy.
     const full = makeEisensteinHu(P);
     const nw = makeEisensteinHuNoWiggle(P);
     const bbks = makeBbks(P);
-    const ks = [0.01, 0.1, 1];
-    [0.680011, 0.0832479, 0.00248256].forEach((t, i) => expect(rel(full(ks[i]), t)).toBeLessThan(1e-5));
-    [0.686037, 0.0825649, 0.00246019].forEach((t, i) => expect(rel(nw(ks[i]), t)).toBeLessThan(1e-5));
-    [0.659069, 0.0860774, 0.00249318].forEach((t, i) => expect(rel(bbks(ks[i]), t)).toBeLessThan(1e-5));
+    const ks = ref.transfer.k_per_mpc;
+    ref.transfer.eh98.forEach((t, i) => expect(rel(full(ks[i]), t)).toBeLessThan(1e-5));
+    ref.transfer.eh98_no_wiggle.forEach((t, i) => expect(rel(nw(ks[i]), t)).toBeLessThan(1e-5));
+    ref.transfer.bbks.forEach((t, i) => expect(rel(bbks(ks[i]), t)).toBeLessThan(1e-5));
   });
 
   it('T(k) → 1 as k → 0 for every form (closed-form limit): |1 − T| < 1e-4 at k = 1e-6 /Mpc and shrinking with k', () => {
@@ -60,11 +62,11 @@ describe('σ(M) and the top-hat integral', () => {
   const table = makeSigmaTable(power);
 
   it('σ(M, z = 0) for 1e8–1e15 Msun matches an independent scipy implementation to 2e-4', () => {
-    // Regression values computed outside this project (EH98 + top hat, same parameters).
-    const want = [5.92022, 4.87249, 3.89922, 3.01282, 2.22716, 1.55568, 1.0087, 0.59152];
-    want.forEach((s, i) => expect(rel(table.sigma0(10 ** (8 + i)), s)).toBeLessThan(2e-4));
-    expect(rel(table.radiusMpc(1e12), 1.8211)).toBeLessThan(1e-4);
-    [[1e10, -0.10381], [1e12, -0.14248], [1e14, -0.20775]].forEach(([m, d]) => expect(rel(table.dlnSigmaDlnM(m), d)).toBeLessThan(1e-3));
+    // Regression values from test/fixtures/scipy (EH98 + top hat, same parameters, scipy quad_vec).
+    const want = ref.sigma;
+    want.sigma0.forEach((s, i) => expect(rel(table.sigma0(want.mass_msun[i]), s)).toBeLessThan(2e-4));
+    expect(rel(table.radiusMpc(want.radius_mass_msun), want.radius_mpc)).toBeLessThan(1e-4);
+    want.dlnsigma_dlnm.forEach((d, i) => expect(rel(table.dlnSigmaDlnM(want.slope_mass_msun[i]), d)).toBeLessThan(1e-3));
   });
 
   it('σ8 normalisation: σ(8/h Mpc) equals the preset σ8 to 1e-12 (definition)', () => {

@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import ref from '../../fixtures/scipy/regression.json';
 import { imfMass, imfMeanMass, imfNumber, makeImf, resolveImf } from '../../../src/core/stars/index.js';
 
 const rel = (a: number, b: number): number => Math.abs(a / b - 1);
@@ -44,20 +45,27 @@ describe('IMF integrals against closed forms', () => {
   });
 
   it('number and mass fractions above 8 Msun and above 1 Msun match independent integrals (scipy, regression values) to 1e-3', () => {
-    // Salpeter 0.1–100: N(>8) = 0.00742 per Msun, mass fraction > 8 = 0.1390, > 1 = 0.3925;
-    // Kroupa 0.1–100: 0.01113, 0.2130, 0.5602. Chabrier single-star 0.1–100: 0.01182, 0.2262, 0.5950
-    // (the published amplitude 4.43e-2 vs our continuity join differ by 0.5%, hence 1e-2 for Chabrier).
+    // Regression values from test/fixtures/scipy (scipy quad of the published forms, 0.1–100 Msun). Chabrier single
+    // stars with the published amplitude 4.43e-2 differs from our continuity join (0.04410) by 0.5%, hence 1e-2
+    // against it; against the continuous form of the same fixture, 1e-3.
     const s = resolveImf('salpeter');
-    expect(rel(imfNumber(s, 8), 0.00742)).toBeLessThan(1e-3);
-    expect(rel(imfMass(s, 8), 0.139)).toBeLessThan(1e-3);
-    expect(rel(imfMass(s, 1), 0.3925)).toBeLessThan(1e-3);
+    const ws = ref.imf.salpeter_0p1_100;
+    expect(rel(imfNumber(s, 8), ws.n_above_8_per_msun)).toBeLessThan(1e-3);
+    expect(rel(imfMass(s, 8), ws.mass_fraction_above_8)).toBeLessThan(1e-3);
+    expect(rel(imfMass(s, 1), ws.mass_fraction_above_1)).toBeLessThan(1e-3);
     const k = resolveImf('kroupa');
-    expect(rel(imfNumber(k, 8), 0.01113)).toBeLessThan(1e-3);
-    expect(rel(imfMass(k, 8), 0.213)).toBeLessThan(1e-3);
-    expect(rel(imfMass(k, 1), 0.5602)).toBeLessThan(1e-3);
+    const wk = ref.imf.kroupa_0p1_100;
+    expect(rel(imfNumber(k, 8), wk.n_above_8_per_msun)).toBeLessThan(1e-3);
+    expect(rel(imfMass(k, 8), wk.mass_fraction_above_8)).toBeLessThan(1e-3);
+    expect(rel(imfMass(k, 1), wk.mass_fraction_above_1)).toBeLessThan(1e-3);
     const c = resolveImf('chabrier');
-    expect(rel(imfNumber(c, 8), 0.01182)).toBeLessThan(1e-2);
-    expect(rel(imfMass(c, 8), 0.2262)).toBeLessThan(1e-2);
+    const wp = ref.imf.chabrier_single_0p1_100_published;
+    expect(rel(imfNumber(c, 8), wp.n_above_8_per_msun)).toBeLessThan(1e-2);
+    expect(rel(imfMass(c, 8), wp.mass_fraction_above_8)).toBeLessThan(1e-2);
+    const wc = ref.imf.chabrier_single_0p1_100_continuous;
+    expect(rel(imfNumber(c, 8), wc.n_above_8_per_msun)).toBeLessThan(1e-3);
+    expect(rel(imfMass(c, 8), wc.mass_fraction_above_8)).toBeLessThan(1e-3);
+    expect(rel(imfMass(c, 1), wc.mass_fraction_above_1)).toBeLessThan(1e-3);
   });
 
   it('the CMB-heated IMF equals Chabrier at z = 0 and grows top-heavy with redshift', () => {
