@@ -6,5 +6,5 @@ export type { ParamProblem } from './validate.js';
 export { photonDensity, radiationDensity } from './radiation.js';
 export { makeBackground } from './background.js';
 export type { Background } from './background.js';
-export { makeGrowth } from './growth.js';
-export type { Growth } from './growth.js';
+export { makeGrowth, GROWTH_MODELS, DEFAULT_GROWTH_MODEL, parseGrowthModel } from './growth.js';
+export type { Growth, GrowthModel } from './growth.js';
