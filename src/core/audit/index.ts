@@ -20,3 +20,5 @@ export { makeRandom, mixSeed } from './random.js';
 export { auditCsv, auditMarkdown } from './report.js';
 export { ceilingCurves, galaxyPoints } from './figures.js';
 export type { CeilingCurves, GalaxyPoints } from './figures.js';
+export { ceilingSpreadDex, ceilingLog10Mass } from './ceiling-spread.js';
+export type { CeilingSpread, CeilingPhysics, CeilingSpreadOptions } from './ceiling-spread.js';
