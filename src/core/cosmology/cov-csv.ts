@@ -43,7 +43,7 @@ export function parseCovarianceCsv(text: string, sourceName = 'covariance file')
   const lines: { line: number; cells: string[] }[] = [];
   text.replace(/^\uFEFF/, '').split(/\r\n|\n|\r/).forEach((l, i) => {
     if (l.trim() === '') return;
-    const cells = (Papa.parse<string[]>(l).data[0] ?? []).map((c) => c.trim());
+    const cells = (Papa.parse<string[]>(l, { delimiter: ',' }).data[0] ?? []).map((c) => c.trim());
     lines.push({ line: i + 1, cells });
   });
   if (!lines.length) fail([{ row: null, column: null, message: `the file is empty; expected a header row "param,${BASE_PARAM_NAMES.join(',')}" and one row per parameter` }]);

@@ -187,6 +187,8 @@ describe('covariance CSV', () => {
     expect(problems('param,h0,sigma8\nh0,1,0\nh0,1,0')).toEqual([expect.objectContaining({ row: 3, message: expect.stringMatching(/second row \(first on line 2\)/) })]);
     // a decimal comma splits the cell: caught as a wrong cell count, never read as two numbers
     expect(problems('param,h0\nh0,0,17')).toEqual([expect.objectContaining({ row: 2, message: expect.stringMatching(/3 cells/) })]);
+    // only commas separate cells (no guessing of semicolons)
+    expect(problems('param;h0\nh0;1')).toEqual([expect.objectContaining({ row: 1, message: expect.stringMatching(/header needs a name column/) })]);
   });
 
   it('refuses an asymmetric or indefinite matrix, naming the row’s line and the column', () => {
