@@ -34,3 +34,5 @@ export { makeRandom, mixSeed, idSeed, fnv1a32 } from './random.js';
 export { auditCsv, auditMarkdown } from './report.js';
 export { ceilingCurves, galaxyPoints } from './figures.js';
 export type { CeilingCurves, GalaxyPoints } from './figures.js';
+export { ceilingSpreadDex, ceilingLog10Mass } from './ceiling-spread.js';
+export type { CeilingSpread, CeilingPhysics, CeilingSpreadOptions } from './ceiling-spread.js';

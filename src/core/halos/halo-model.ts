@@ -1,5 +1,5 @@
 import { makeBackground, type Background } from '../cosmology/background.js';
-import { makeGrowth, type Growth } from '../cosmology/growth.js';
+import { DEFAULT_GROWTH_MODEL, makeGrowth, type Growth, type GrowthModel } from '../cosmology/growth.js';
 import type { CosmologyParams } from '../cosmology/params.js';
 import { gaussLegendre } from '../numeric/gauss-legendre.js';
 import { makeLinearPower, type LinearPower } from '../power/linear-power.js';
@@ -15,6 +15,8 @@ export interface HaloModelOptions {
   readonly transfer: TransferSpec;
   readonly massFunction: string;
   readonly deltaC?: DeltaCSpec;
+  /** Growth factor: `matter-lambda` (default: radiation left out) or `with-radiation` (see cosmology/growth.ts). */
+  readonly growth?: GrowthModel;
 }
 
 /** Halo abundances at one redshift, with cumulative integrals tabulated on the σ-table nodes. */
@@ -64,7 +66,9 @@ export interface HaloModelShared {
 export function makeHaloModel(options: HaloModelOptions, shared?: HaloModelShared): HaloModel {
   const p = options.cosmology;
   const background = shared?.background ?? makeBackground(p);
-  const growth = shared?.growth ?? makeGrowth(p);
+  const growthModel = options.growth ?? DEFAULT_GROWTH_MODEL;
+  if (shared && shared.growth.model !== growthModel) throw new RangeError(`shared growth factor is "${shared.growth.model}" but the halo model asks for "${growthModel}"`);
+  const growth = shared?.growth ?? makeGrowth(p, false, growthModel);
   const power = shared?.power ?? makeLinearPower(p, options.transfer);
   const table = shared?.table ?? makeSigmaTable(power);
   const model = massFunctionByName(options.massFunction);
