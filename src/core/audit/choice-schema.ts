@@ -1,3 +1,5 @@
+import { GROWTH_MODELS } from '../cosmology/growth.js';
+import { covarianceProblems } from '../cosmology/parameter-covariance.js';
 import { PARAM_SPECS } from '../cosmology/params.js';
 import { validateCosmology } from '../cosmology/validate.js';
 import { MASS_FUNCTION_NAMES } from '../halos/models.js';
@@ -105,6 +107,14 @@ function checkZBins(b: unknown): ChoiceProblem[] {
   return out;
 }
 
+function checkCovariance(c: unknown): ChoiceProblem[] {
+  if (!isObject(c) || !Array.isArray(c.matrix) || !c.matrix.every((r) => Array.isArray(r))) return [{ field: 'cosmologyCovariance', reason: `must be {matrix: 5×5 numbers, source} (got ${show(c)})` }];
+  const out: ChoiceProblem[] = [];
+  text(out, 'cosmologyCovariance.source', c.source);
+  for (const p of covarianceProblems(c.matrix as number[][])) out.push({ field: p.row ? `cosmologyCovariance.matrix[${p.row}][${p.column}]` : 'cosmologyCovariance.matrix', reason: p.message });
+  return out;
+}
+
 /**
  * Every problem with a choices object (any JSON value). An empty list means `x` is a valid
  * AuditChoices. `headlineImf` may be missing (it defaults to the first of `imfs`).
@@ -130,6 +140,8 @@ export function checkChoices(x: unknown): ChoiceProblem[] {
     const p = typeof x.headlineImf === 'string' ? imfProblem(x.headlineImf) : `must be an IMF name (got ${show(x.headlineImf)})`;
     if (p) out.push({ field: 'headlineImf', reason: p });
   }
+  if (x.growth !== undefined && !(GROWTH_MODELS as readonly unknown[]).includes(x.growth)) out.push({ field: 'growth', reason: `must be one of ${GROWTH_MODELS.join(', ')} (got ${show(x.growth)})` });
+  if (x.cosmologyCovariance !== undefined) out.push(...checkCovariance(x.cosmologyCovariance));
   if (text(out, 'sfh', x.sfh)) {
     try {
       parseSfh(x.sfh);

@@ -1,3 +1,5 @@
+import type { GrowthModel } from '../cosmology/growth.js';
+import type { ParamCovariance } from '../cosmology/parameter-covariance.js';
 import type { CosmologyParams } from '../cosmology/params.js';
 import type { DeltaCSpec } from '../halos/collapse-threshold.js';
 import type { TransferSpec } from '../power/transfer.js';
@@ -17,6 +19,10 @@ export interface AuditChoices {
    * (normalizeChoices adds it to `imfs` when missing).
    */
   readonly headlineImf?: string;
+  /** Growth factor: `matter-lambda` (default, radiation left out) or `with-radiation`. */
+  readonly growth?: GrowthModel;
+  /** Covariance of the base cosmological parameters for the ceiling's spread (default: the preset's 1σ errors). */
+  readonly cosmologyCovariance?: ParamCovariance;
   /** Star-formation history, as text (see parseSfh). */
   readonly sfh: string;
   readonly metallicity: number;

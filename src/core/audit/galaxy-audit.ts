@@ -10,7 +10,7 @@ import type { CeilingTable } from './ceiling.js';
 import { drawGalaxy, type GalaxyDraws } from './galaxy-draws.js';
 import { imfStatistics, type ImfResult, type ImfStatistics, type SharedDraws } from './imf-statistics.js';
 import { rescaleBase, rescalePosition } from './imf-rescale.js';
-import { idSeed } from './random.js';
+import { idSeed, makeRandom } from './random.js';
 import type { GalaxyInput } from './sample.js';
 import { reconcileGalaxy, type Reconciliation } from './reconcile.js';
 import { logAccretedBaryons } from './time-budget.js';
@@ -45,6 +45,8 @@ export interface GalaxyAudit {
     readonly stellar_ceiling_msun: number;
     readonly sigma_dm: number;
     readonly bias_smt01: number;
+    /** 1σ of log10 M_halo,q from the cosmological parameters (linear response), dex. */
+    readonly log_mass_cosmo_sd_dex: number;
   };
   readonly eddington: {
     readonly sigma_dex: number;
@@ -70,6 +72,8 @@ export interface AuditContext {
   readonly sfh: Sfh;
   readonly choices: AuditChoices;
   ceilingFor(surveyName: string | undefined): CeilingTable;
+  /** 1σ (dex) of the ceiling's log10 M_halo,q from the cosmological parameters, at z. */
+  ceilingSdDexAt(surveyName: string | undefined, z: number): number;
   /** Area (arcmin²) of the named survey, or of the default one. */
   areaFor(surveyName: string | undefined): number;
   sigmaDmFor(surveyName: string | undefined, z: number): number;
@@ -101,6 +105,18 @@ function drawGrid(g: GalaxyInput, d: GalaxyDraws, valid: readonly number[], grid
     }
   }
   return { x, y, base };
+}
+
+/**
+ * Each draw's offset of the ceiling's log10 mass from the cosmological parameters, N(0, sd²) dex, from
+ * a stream of its own (seeded from the galaxy's stream seed with a fixed tag), so that the other draws
+ * are the same with or without it.
+ */
+function ceilingOffsets(seed: number, id: string, n: number, sdDex: number): Float64Array {
+  const rnd = makeRandom(idSeed(seed, id) ^ 0x6a09e667);
+  const out = new Float64Array(n);
+  for (let i = 0; i < n; i++) out[i] = sdDex * rnd.normal();
+  return out;
 }
 
 /** Indices of the draws whose band fell inside the model's rest range (all, for a reported mass). */
@@ -216,7 +232,8 @@ export function auditGalaxy(ctx: AuditContext, g: GalaxyInput, index: number): G
   const refTable = g.imfRef ? tableOf(g.imfRef) : undefined;
   const { x: gx, y: gy, base } = drawGrid(g, d, valid, tableOf(imfs[0]), refTable);
   const acc = drawAccretion(ctx, g, d, valid, logCeil);
-  const shared: SharedDraws = { n: valid.length, base, gx, gy, logCeil, logCeilCv, logAccretedBaryons: acc };
+  const cosmoSd = ctx.ceilingSdDexAt(g.survey, g.z);
+  const shared: SharedDraws = { n: valid.length, base, gx, gy, logCeil, logCeilCv, logAccretedBaryons: acc, cosmoOffset: ceilingOffsets(choices.seed, g.id, valid.length, cosmoSd) };
   const sigmaDex = g.log10Mstar !== undefined ? g.log10MstarErr : 0.4 * g.magErr;
   const ed = { halo, z: g.z, sigmaDex, epsRef: choices.epsRef };
   const stats: Record<string, ImfStatistics> = {};
@@ -276,6 +293,7 @@ export function auditGalaxy(ctx: AuditContext, g: GalaxyInput, index: number): G
       stellar_ceiling_msun: fb * mCeil,
       sigma_dm: sigmaDm,
       bias_smt01: halo.bias(mCeil, g.z, 'smt01'),
+      log_mass_cosmo_sd_dex: cosmoSd,
     },
     eddington: {
       sigma_dex: sigmaDex,

@@ -15,6 +15,8 @@ export interface ImfResult {
   readonly eps_required_p95: number;
   readonly p_over_budget: number;
   readonly p_strained: number;
+  /** P(ε_req > 1) with each draw's ceiling offset by the spread from the cosmological parameters. */
+  readonly p_over_budget_cosmo: number;
   /** Median ε_req after the exact Eddington-bias correction of the measured mass. */
   readonly eps_required_median_debiased: number;
   readonly verdict_debiased: Verdict;
@@ -40,6 +42,8 @@ export interface SharedDraws {
   readonly logCeilCv: Float64Array;
   /** log10 f_b ΔM_h accreted during each draw's star formation; undefined = no time budget. */
   readonly logAccretedBaryons?: Float64Array;
+  /** Each draw's offset of log10 M_halo,q from the cosmological parameters, dex. */
+  readonly cosmoOffset: Float64Array;
 }
 
 export interface EddingtonInputs {
@@ -88,6 +92,7 @@ export function imfStatistics(tab: MassToLightTable, d: SharedDraws, ed: Eddingt
   const lratio = acc ? new Float64Array(nv) : undefined;
   const lformed = acc && wantFormedMedian ? new Float64Array(nv) : undefined;
   let over = 0;
+  let overCosmo = 0;
   let strained = 0;
   let tbOver = 0;
   const lRef = Math.log10(ed.epsRef);
@@ -98,6 +103,7 @@ export function imfStatistics(tab: MassToLightTable, d: SharedDraws, ed: Eddingt
     leps[i] = e;
     lepsCv[i] = v - d.logCeilCv[i];
     if (e > 0) over++;
+    if (e > d.cosmoOffset[i]) overCosmo++;
     if (e > lRef) strained++;
     if (acc) {
       const f = v - logSurvivingAt(tab, d.gx[i]);
@@ -127,6 +133,7 @@ export function imfStatistics(tab: MassToLightTable, d: SharedDraws, ed: Eddingt
     eps_required_p95: 10 ** le95,
     p_over_budget: over / nv,
     p_strained: strained / nv,
+    p_over_budget_cosmo: overCosmo / nv,
     eps_required_median_debiased: debiased,
     verdict_debiased: verdictFor(debiased, ed.epsRef),
     eddington_shift_dex: shift,

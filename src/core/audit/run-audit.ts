@@ -3,6 +3,7 @@ import { makePopulationCache, type PopulationCache } from '../stars/population-c
 import { isKnownImf } from './imf-check.js';
 import { parseSfh } from '../stars/sfh.js';
 import { makeCeilingTable, type CeilingTable } from './ceiling.js';
+import { makeCeilingUncertainty, type CeilingUncertainty } from './ceiling-uncertainty.js';
 import { normalizeChoices, validateChoices, type AuditChoices } from './choices.js';
 import { boxSigmaDm } from './cosmic-variance.js';
 import { auditGalaxy, type AuditContext, type GalaxyAudit } from './galaxy-audit.js';
@@ -50,19 +51,21 @@ interface Env {
   cache: PopulationCache;
   ceilings: Map<string, CeilingTable>;
   sigmaDm: Map<string, number>;
+  spreads: Map<string, CeilingUncertainty>;
 }
 const envMemo = new Map<string, Env>();
 
 /** Halo model, population tables and ceilings are kept between audits with the same physics (up to 4). */
 function envFor(choices: AuditChoices): Env {
-  const key = JSON.stringify([choices.cosmology, choices.transfer, choices.massFunction, choices.deltaC, choices.metallicity]);
+  const key = JSON.stringify([choices.cosmology, choices.transfer, choices.massFunction, choices.deltaC, choices.metallicity, choices.growth ?? '']);
   let e = envMemo.get(key);
   if (!e) {
     e = {
-      halo: makeHaloModel({ cosmology: choices.cosmology, transfer: choices.transfer, massFunction: choices.massFunction, deltaC: choices.deltaC }),
+      halo: makeHaloModel({ cosmology: choices.cosmology, transfer: choices.transfer, massFunction: choices.massFunction, deltaC: choices.deltaC, growth: choices.growth }),
       cache: makePopulationCache(choices.metallicity),
       ceilings: new Map(),
       sigmaDm: new Map(),
+      spreads: new Map(),
     };
     if (envMemo.size >= 4) envMemo.delete(envMemo.keys().next().value as string);
     envMemo.set(key, e);
@@ -81,9 +84,13 @@ export function prepareAudit(sampleCsv: string, given: AuditChoices): PreparedAu
   const { halo, cache } = env;
   const surveys = new Map<string, Survey>(choices.surveys.map((s) => [s.name, s]));
   let zTop = 1;
+  let zLowest = Infinity;
+  let zHighest = -Infinity;
   for (const r of parsed.rows) {
     if (r.status !== 'ok') continue;
     const g = r.galaxy!;
+    zLowest = Math.min(zLowest, g.z);
+    zHighest = Math.max(zHighest, g.z);
     const spread = Math.max(g.zHi !== undefined ? g.zHi - g.z : 0, g.z - (g.zLo ?? g.z));
     zTop = Math.max(zTop, g.z + 5 * spread, (g.zAlt ?? 0) * 1.3, choices.survey.zMax + 1);
   }
@@ -106,6 +113,17 @@ export function prepareAudit(sampleCsv: string, given: AuditChoices): PreparedAu
       return c;
     },
     areaFor: (name) => surveyOf(name).areaArcmin2,
+    ceilingSdDexAt: (name, z) => {
+      const s = surveyOf(name);
+      const key = JSON.stringify([s.areaArcmin2, choices.quantile, choices.sliceDz, choices.cosmologyCovariance ?? null, zLowest, zHighest]);
+      let u = env.spreads.get(key);
+      if (!u) {
+        u = makeCeilingUncertainty(choices, s.areaArcmin2, zLowest, zHighest);
+        if (env.spreads.size > 16) env.spreads.clear();
+        env.spreads.set(key, u);
+      }
+      return u.sdDexAt(z);
+    },
     sigmaDmFor: (name, z) => {
       const s = surveyOf(name);
       const zr = Math.round(z * 4) / 4; // σ_dm changes slowly with z: evaluated on a 0.25 grid
