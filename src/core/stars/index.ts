@@ -19,7 +19,8 @@ export { zamsLuminosityLsun, zamsRadiusRsun, effectiveTemperatureK } from './zam
 export { remnantMassMsun } from './remnant.js';
 export { blackbodyLnu } from './blackbody.js';
 export { balmerJumpDex } from './balmer-jump.js';
-export { stellarLnu, atmosphereFluxRatio, atmosphereOpacityRatios } from './stellar-atmosphere.js';
+export { stellarLnu, atmosphereAt, emittingTemperatureK, atmosphereFluxRatio, atmosphereOpacityRatios } from './stellar-atmosphere.js';
+export type { AtmosphereRatios } from './stellar-atmosphere.js';
 export { intrinsicUvSlope, UV_SLOPE_LAMBDA_MIN_UM, UV_SLOPE_LAMBDA_MAX_UM } from './intrinsic-uv-slope.js';
 export { cumulativeYoungerThan, currentSfrPerMassFormed, parseSfh, validateSfh, SFH_NAMES } from './sfh.js';
 export type { Sfh } from './sfh.js';

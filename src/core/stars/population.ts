@@ -2,7 +2,7 @@ import { imfMass, imfNumber, type Imf } from './imf.js';
 import { mainSequenceLifetimeMyr } from './lifetime.js';
 import { remnantMassMsun } from './remnant.js';
 import { cumulativeYoungerThan, type Sfh } from './sfh.js';
-import { stellarLnu } from './stellar-atmosphere.js';
+import { atmosphereAt, stellarLnu, type AtmosphereRatios } from './stellar-atmosphere.js';
 import { effectiveTemperatureK, zamsLuminosityLsun, zamsRadiusRsun } from './zams.js';
 
 /**
@@ -100,6 +100,19 @@ export function makePopulation(imf: Imf, opts: PopulationOptions = {}): Populati
     rMs[i] = MS_RADIUS_FACTOR * zamsRadiusRsun(m, Z);
     tEff[i] = effectiveTemperatureK(lMs[i], rMs[i]);
   }
+  // Photospheres and post-main-sequence radii: fixed per bin, reused at every wavelength.
+  const atmPostRed = atmosphereAt(POST_MS_TEFF_K);
+  const atmPostBlue = atmosphereAt(POST_MS_TEFF_MASSIVE_K);
+  const atmMs: AtmosphereRatios[] = [];
+  const atmPost: AtmosphereRatios[] = [];
+  const rPost = new Float64Array(n);
+  for (let i = 0; i < n; i++) {
+    atmMs.push(atmosphereAt(tEff[i]));
+    const massive = mStar[i] >= POST_MS_MASSIVE_MSUN;
+    atmPost.push(massive ? atmPostBlue : atmPostRed);
+    const lPost = (POST_MS_LUMINOSITY_FACTOR / MS_LUMINOSITY_FACTOR) * lMs[i];
+    rPost[i] = Math.sqrt(lPost) * (5772 / (massive ? POST_MS_TEFF_MASSIVE_K : POST_MS_TEFF_K)) ** 2; // Stefan–Boltzmann in solar units
+  }
   const lnuCache = new Map<number, { ms: Float64Array; post: Float64Array }>();
   const perStarLnu = (lambdaUm: number): { ms: Float64Array; post: Float64Array } => {
     const hit = lnuCache.get(lambdaUm);
@@ -107,11 +120,8 @@ export function makePopulation(imf: Imf, opts: PopulationOptions = {}): Populati
     const ms = new Float64Array(n);
     const post = new Float64Array(n);
     for (let i = 0; i < n; i++) {
-      ms[i] = stellarLnu(rMs[i], tEff[i], lambdaUm);
-      const lPost = (POST_MS_LUMINOSITY_FACTOR / MS_LUMINOSITY_FACTOR) * lMs[i];
-      const tPost = mStar[i] >= POST_MS_MASSIVE_MSUN ? POST_MS_TEFF_MASSIVE_K : POST_MS_TEFF_K;
-      const rPost = Math.sqrt(lPost) * (5772 / tPost) ** 2; // Stefan–Boltzmann in solar units
-      post[i] = stellarLnu(rPost, tPost, lambdaUm);
+      ms[i] = stellarLnu(rMs[i], atmMs[i], lambdaUm);
+      post[i] = stellarLnu(rPost[i], atmPost[i], lambdaUm);
     }
     const v = { ms, post };
     if (lnuCache.size > 256) lnuCache.clear();

@@ -140,16 +140,34 @@ export function atmosphereOpacityRatios(tEffK: number): { rP: number; j: number 
   return { rP: t.rP[i] + f * (t.rP[i + 1] - t.rP[i]), j: t.j[i] + f * (t.j[i + 1] - t.j[i]) };
 }
 
-/** Emergent F_ν over the black-body value πB_ν(T_eff) at λ (μm): B_ν(T(τ_ν = ⅔))/B_ν(T_eff). */
-export function atmosphereFluxRatio(tEffK: number, lambdaUm: number): number {
-  const { rP, j } = atmosphereOpacityRatios(tEffK);
-  const r = opacityRatio(lambdaUm, rP, j);
-  const tForm = r === Infinity ? tEffK * 2 ** -0.25 : formationTemperatureK(tEffK, r);
-  const bb = planckShape(tEffK, lambdaUm);
-  return bb > 0 ? planckShape(tForm, lambdaUm) / bb : 0;
+export interface AtmosphereRatios {
+  readonly tEffK: number;
+  readonly rP: number;
+  readonly j: number;
 }
 
-/** Specific luminosity of a star of radius R (Rsun) and T_eff (K) at λ (μm) with this atmosphere, erg s⁻¹ Hz⁻¹. */
-export function stellarLnu(rRsun: number, tEffK: number, lambdaUm: number): number {
-  return blackbodyLnu(rRsun, tEffK, lambdaUm) * atmosphereFluxRatio(tEffK, lambdaUm);
+/** The photosphere of one T_eff (its opacity ratios), for repeated use at many wavelengths. */
+export function atmosphereAt(tEffK: number): AtmosphereRatios {
+  return { tEffK, ...atmosphereOpacityRatios(tEffK) };
+}
+
+/** Temperature of the layer that emits λ (μm), where τ_ν = ⅔ (Eddington grey law; 2^(−1/4) T_eff in the Lyman continuum), K. */
+export function emittingTemperatureK(a: AtmosphereRatios, lambdaUm: number): number {
+  const r = opacityRatio(lambdaUm, a.rP, a.j);
+  return r === Infinity ? a.tEffK * 2 ** -0.25 : formationTemperatureK(a.tEffK, r);
+}
+
+/** Emergent F_ν over the black-body value πB_ν(T_eff) at λ (μm): B_ν(T(τ_ν = ⅔))/B_ν(T_eff). */
+export function atmosphereFluxRatio(tEffK: number, lambdaUm: number): number {
+  const bb = planckShape(tEffK, lambdaUm);
+  return bb > 0 ? planckShape(emittingTemperatureK(atmosphereAt(tEffK), lambdaUm), lambdaUm) / bb : 0;
+}
+
+/**
+ * Specific luminosity of a star of radius R (Rsun) with this photosphere at λ (μm): 4πR² πB_ν(T(τ_ν = ⅔)),
+ * erg s⁻¹ Hz⁻¹. Pass atmosphereAt(T_eff) to reuse one photosphere across wavelengths.
+ */
+export function stellarLnu(rRsun: number, atmosphere: AtmosphereRatios | number, lambdaUm: number): number {
+  const a = typeof atmosphere === 'number' ? atmosphereAt(atmosphere) : atmosphere;
+  return blackbodyLnu(rRsun, emittingTemperatureK(a, lambdaUm), lambdaUm);
 }
