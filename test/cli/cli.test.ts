@@ -43,6 +43,11 @@ describe('CLI contract', () => {
     const burst = JSON.parse((await run(['stars', '--sfh', 'burst'])).out);
     expect(burst.rows[0].sfr_per_lnu).toBeNull();
   });
+  it('stars refuses, with the IMF named, a population whose stars have all died (no Infinity or NaN in M/L and beta_uv)', async () => {
+    const r = await run(['stars', '--imf', 'custom:50:2.35:100', '--sfh', 'burst', '--age-myr', '1000']);
+    expect(r.code).toBe(2);
+    expect(r.err).toMatch(/--imf custom:50:2\.35:100: no light left .*every star has died/);
+  });
   it('stars --list-imfs lists every preset with top_heavy and source', async () => {
     const j = JSON.parse((await run(['stars', '--list-imfs', '--format', 'json'])).out);
     expect(j.imfs.filter((i: { top_heavy: boolean }) => i.top_heavy).length).toBeGreaterThanOrEqual(2);

@@ -18,6 +18,14 @@ ${STAR_HELP}
 
 ${COSMOLOGY_HELP}`;
 
+function uvSlope(imf: string, f: () => number): number {
+  try {
+    return f();
+  } catch (e) {
+    throw new CliError(`--imf ${imf}: ${(e as Error).message}`);
+  }
+}
+
 export function runStars(argv: string[]): string {
   const { values } = parse(argv, {
     'list-imfs': { type: 'boolean' },
@@ -47,6 +55,7 @@ export function runStars(argv: string[]): string {
   const rows = names.map((imf) => {
     const pop = cache.population(imf, z ?? 0);
     const lnu = pop.lnu(sfh, age, lam);
+    if (!(lnu > 0)) throw new CliError(`--imf ${imf}: no light left at ${lam} μm after ${age} Myr (every star has died); use a younger --age-myr or an IMF with lower masses`);
     const surv = pop.survivingFraction(sfh, age);
     return {
       imf,
@@ -58,7 +67,7 @@ export function runStars(argv: string[]): string {
       returned_fraction: 1 - surv,
       mass_to_light: surv / lnu,
       sfr_per_lnu: sfh.kind === 'constant' ? currentSfrPerMassFormed(sfh, age) / lnu : null,
-      beta_uv: intrinsicUvSlope(pop, sfh, age),
+      beta_uv: uvSlope(imf, () => intrinsicUvSlope(pop, sfh, age)),
     };
   });
   return fmt === 'csv' ? toCsv(rows) : toJson({ metallicity: met, ...(z !== undefined ? { z } : {}), rows });

@@ -12,6 +12,7 @@ const N_POINTS = 15;
  * log10 L_λ against log10 λ over 1300–2600 Å, with L_λ ∝ L_ν/λ², i.e. f_λ ∝ λ^β (Calzetti, Kinney &
  * Storchi-Bergmann 1994, ApJ 429, 582 define β this way, fitted in windows between 1268 and 2580 Å;
  * from memory). Fitted on 15 log-spaced wavelengths of the model spectrum. Dimensionless.
+ * Throws a RangeError when the population has no UV light left (every star dead at that age).
  */
 export function intrinsicUvSlope(pop: Population, sfh: Sfh, ageMyr: number): number {
   const phases = pop.phases(sfh, ageMyr);
@@ -23,7 +24,9 @@ export function intrinsicUvSlope(pop: Population, sfh: Sfh, ageMyr: number): num
   let sxy = 0;
   for (let i = 0; i < N_POINTS; i++) {
     const x = l0 + ((l1 - l0) * i) / (N_POINTS - 1);
-    const y = Math.log10(pop.lnuAt(phases, 10 ** x)) - 2 * x;
+    const lnu = pop.lnuAt(phases, 10 ** x);
+    if (!(lnu > 0)) throw new RangeError(`no UV light left at ${ageMyr} Myr: every star of this IMF has died, so the UV slope is undefined`);
+    const y = Math.log10(lnu) - 2 * x;
     sx += x;
     sy += y;
     sxx += x * x;

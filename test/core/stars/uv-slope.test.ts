@@ -30,6 +30,11 @@ describe('intrinsic UV slope of the population model', () => {
     expect(Math.abs(intrinsicUvSlope(fake, csf, 100) + 2.37)).toBeLessThan(1e-12);
   });
 
+  it('a population with no light left (every star dead) has no slope: a RangeError that says so, not NaN', () => {
+    const p = makePopulation(resolveImf('custom:50:2.35:100'));
+    expect(() => intrinsicUvSlope(p, { kind: 'burst' }, 1000)).toThrow(/no UV light left at 1000 Myr/);
+  });
+
   it('a 10 Myr constant-SFR population is bluer than a 300 Myr one (more of the UV from O stars; common practice, no source)', () => {
     const p = salpeter();
     expect(intrinsicUvSlope(p, csf, 10)).toBeLessThan(intrinsicUvSlope(p, csf, 300) - 0.2);
