@@ -17,7 +17,9 @@ import { blackbodyLnu } from './blackbody.js';
  *    (balmer-jump.ts), and conservation of the total flux, ∫F_ν dν = σT_eff⁴.
  * The flux blocked in the Lyman and Balmer continua comes out where the gas is transparent, so hot stars are
  * brighter and bluer between 912 and 3000 Å than a black body of their T_eff. Metal-line blanketing is not
- * modelled. Wavelengths in μm, temperatures in K.
+ * modelled. Total flux is conserved to ≤ 0.6% for 3000–60 000 K (r_P, j interpolated in log T_eff; the test
+ * integrates on a fine grid); it degrades above (−2% at 150 000 K, beyond any star of the model).
+ * Wavelengths in μm, temperatures in K.
  */
 
 const LAMBDA_BALMER_UM = 0.3646;
@@ -30,10 +32,15 @@ const J_MAX = 1e4;
 const T_MIN_K = 2500;
 const T_MAX_K = 200000;
 const N_T = 40;
-/** Wavelength grid for the flux integral: log-spaced, μm. */
-const LAM_LO_UM = 0.005;
-const LAM_HI_UM = 60;
-const N_LAM = 400;
+/**
+ * Wavelength grid for the flux integral, μm: midpoints of log-spaced cells in three pieces that meet at the
+ * Lyman and Balmer edges, so no cell straddles a jump (the midpoint rule stays second order).
+ */
+const LAM_PIECES: readonly (readonly [number, number, number])[] = [
+  [0.005, 0.0912, 30],
+  [0.0912, 0.3646, 50],
+  [0.3646, 60, 100],
+];
 
 /** B_ν(T) up to the constant 2h/c² · c³ (λ in μm): 1/(λ³ (e^x − 1)), x = hc/(λkT). */
 function planckShape(tK: number, lambdaUm: number): number {
@@ -66,15 +73,23 @@ function balmerRatioFor(tEffK: number, rP: number, dDex: number): number {
   return Math.min(Math.max(1 / q - rP, 0), J_MAX);
 }
 
-const LAMS = Array.from({ length: N_LAM }, (_, i) => LAM_LO_UM * (LAM_HI_UM / LAM_LO_UM) ** ((i + 0.5) / N_LAM));
-/** Per grid point: hc/(λk) in μm K over μm; the weight 1/λ⁴ of F_ν dν on a log-λ grid (planckShape's 1/λ³ times dν ∝ dlnλ/λ); (λ/3646 Å)³. */
+const LAMS: number[] = [];
+const DLN: number[] = [];
+for (const [lo, hi, n] of LAM_PIECES) {
+  for (let i = 0; i < n; i++) {
+    LAMS.push(lo * (hi / lo) ** ((i + 0.5) / n));
+    DLN.push(Math.log(hi / lo) / n);
+  }
+}
+const N_LAM = LAMS.length;
+/** Per grid point: hc/(λk) in μm K over μm; the weight Δlnλ/λ⁴ of F_ν dν (planckShape's 1/λ³ times |dν| ∝ dlnλ/λ); (λ/3646 Å)³. */
 const X_T = LAMS.map((l) => HC_K_UM_K / l);
-const W = LAMS.map((l) => 1 / l ** 4);
+const W = LAMS.map((l, i) => DLN[i] / l ** 4);
 const BALMER_CUBE = LAMS.map((l) => (l / LAMBDA_BALMER_UM) ** 3);
 const I_LYMAN = LAMS.findIndex((l) => l >= LAMBDA_LYMAN_UM);
 const I_BALMER = LAMS.findIndex((l) => l >= LAMBDA_BALMER_UM);
 
-/** Σ over grid points i0 ≤ i < i1 of planckShape(T, λ_i)/λ_i (∝ ∫F_ν dν over that range). */
+/** Σ over grid points i0 ≤ i < i1 of planckShape(T, λ_i) Δlnλ_i/λ_i (∝ ∫F_ν dν over that range). */
 function planckSum(tK: number, i0: number, i1: number): number {
   let s = 0;
   for (let i = i0; i < i1; i++) {
@@ -96,15 +111,16 @@ function totalFlux(tEffK: number, rP: number, j: number, lymanPart: number): num
 
 /**
  * Solves flux conservation for r_P at one T_eff (r_P ≤ 1, since the continua only block), with j from the
- * Balmer jump: bisection in ln r_P over [ln 10⁻³, 0] to 2⁻²⁶ of the bracket.
+ * Balmer jump: bisection in ln r_P over [ln 10⁻⁶, 0] to 2⁻²⁸ of the bracket (the hottest stars, whose flux lies mostly
+ * in the opaque Lyman continuum, need r_P far below 1).
  */
 function solveAtmosphere(tEffK: number): { rP: number; j: number } {
   const target = planckSum(tEffK, 0, N_LAM);
   const lymanPart = planckSum(tEffK * 2 ** -0.25, 0, I_LYMAN);
   const d = balmerJumpDex(tEffK);
-  let lo = Math.log(1e-3);
+  let lo = Math.log(1e-6);
   let hi = 0;
-  for (let k = 0; k < 26; k++) {
+  for (let k = 0; k < 28; k++) {
     const mid = 0.5 * (lo + hi);
     const rP = Math.exp(mid);
     if (totalFlux(tEffK, rP, balmerRatioFor(tEffK, rP, d), lymanPart) > target) lo = mid;
