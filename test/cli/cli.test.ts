@@ -35,12 +35,18 @@ describe('CLI contract', () => {
     expect(j.quantiles.map((q: { q: number }) => q.q)).toEqual([0.5, 0.84, 0.997]);
     expect(j.quantiles[2].mass_msun).toBeGreaterThan(j.quantiles[0].mass_msun);
   });
-  it('stars gives one row per IMF with the documented fields; sfr_per_lnu only for constant SFR', async () => {
+  it('stars gives one row per IMF with the documented fields (beta_uv finite); sfr_per_lnu only for constant SFR', async () => {
     const j = JSON.parse((await run(['stars', '--imf', 'salpeter,kroupa,chabrier', '--sfh', 'constant', '--age-myr', '100', '--wavelength-um', '0.15'])).out);
     expect(j.rows.map((r: { imf: string }) => r.imf)).toEqual(['salpeter', 'kroupa', 'chabrier']);
-    expect(Object.keys(j.rows[0])).toEqual(['imf', 'sfh', 'age_myr', 'wavelength_um', 'lnu_per_msun_formed', 'surviving_fraction', 'returned_fraction', 'mass_to_light', 'sfr_per_lnu']);
+    expect(Object.keys(j.rows[0])).toEqual(['imf', 'sfh', 'age_myr', 'wavelength_um', 'lnu_per_msun_formed', 'surviving_fraction', 'returned_fraction', 'mass_to_light', 'sfr_per_lnu', 'beta_uv']);
+    for (const r of j.rows) expect(Number.isFinite(r.beta_uv)).toBe(true);
     const burst = JSON.parse((await run(['stars', '--sfh', 'burst'])).out);
     expect(burst.rows[0].sfr_per_lnu).toBeNull();
+  });
+  it('stars refuses, with the IMF named, a population whose stars have all died (no Infinity or NaN in M/L and beta_uv)', async () => {
+    const r = await run(['stars', '--imf', 'custom:50:2.35:100', '--sfh', 'burst', '--age-myr', '1000']);
+    expect(r.code).toBe(2);
+    expect(r.err).toMatch(/--imf custom:50:2\.35:100: no light left .*every star has died/);
   });
   it('stars --list-imfs lists every preset with top_heavy and source', async () => {
     const j = JSON.parse((await run(['stars', '--list-imfs', '--format', 'json'])).out);

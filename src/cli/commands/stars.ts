@@ -1,5 +1,5 @@
 import { makeBackground } from '../../core/cosmology/index.js';
-import { currentSfrPerMassFormed, IMF_PRESETS, makePopulationCache } from '../../core/stars/index.js';
+import { currentSfrPerMassFormed, IMF_PRESETS, intrinsicUvSlope, makePopulationCache } from '../../core/stars/index.js';
 import { COSMOLOGY_HELP, COSMOLOGY_OPTIONS, cosmologyFrom, format, num, parse } from '../args.js';
 import { CliError } from '../cli-error.js';
 import { toCsv, toJson } from '../output.js';
@@ -10,12 +10,21 @@ export const STARS_HELP = `Usage: stars --imf salpeter,chabrier --sfh constant -
 Population synthesis per IMF: L_ν per Msun formed [erg/s/Hz], surviving fraction (stars +
 remnants), returned fraction, mass-to-light [surviving Msun per erg/s/Hz] and, for constant SFR,
 SFR/L_ν [Msun/yr per erg/s/Hz], at any rest wavelength from 0.1 to 1 μm (intrinsic light, before
-dust and the intergalactic medium). --z sets the redshift for the CMB-heated IMF and caps the age at
-the cosmic age there.
+dust and the intergalactic medium), and beta_uv, the intrinsic UV slope (least-squares slope of
+log L_λ against log λ over 1300–2600 Å). --z sets the redshift for the CMB-heated IMF and caps
+the age at the cosmic age there.
 
 ${STAR_HELP}
 
 ${COSMOLOGY_HELP}`;
+
+function uvSlope(imf: string, f: () => number): number {
+  try {
+    return f();
+  } catch (e) {
+    throw new CliError(`--imf ${imf}: ${(e as Error).message}`);
+  }
+}
 
 export function runStars(argv: string[]): string {
   const { values } = parse(argv, {
@@ -46,6 +55,7 @@ export function runStars(argv: string[]): string {
   const rows = names.map((imf) => {
     const pop = cache.population(imf, z ?? 0);
     const lnu = pop.lnu(sfh, age, lam);
+    if (!(lnu > 0)) throw new CliError(`--imf ${imf}: no light left at ${lam} μm after ${age} Myr (every star has died); use a younger --age-myr or an IMF with lower masses`);
     const surv = pop.survivingFraction(sfh, age);
     return {
       imf,
@@ -57,6 +67,7 @@ export function runStars(argv: string[]): string {
       returned_fraction: 1 - surv,
       mass_to_light: surv / lnu,
       sfr_per_lnu: sfh.kind === 'constant' ? currentSfrPerMassFormed(sfh, age) / lnu : null,
+      beta_uv: uvSlope(imf, () => intrinsicUvSlope(pop, sfh, age)),
     };
   });
   return fmt === 'csv' ? toCsv(rows) : toJson({ metallicity: met, ...(z !== undefined ? { z } : {}), rows });

@@ -58,14 +58,15 @@ describe('population synthesis against published calibrations', () => {
     expect(rel(kuv('kroupa') / kuv('salpeter'), 0.67)).toBeLessThan(0.05);
   });
 
-  it('UV SFR calibrations within ±30%: Kennicutt 1998 1.4e-28 and Madau & Dickinson 2014 1.15e-28 (Salpeter), Kennicutt & Evans 2012 Table 1 FUV (Kroupa)', () => {
-    // Not an independent test: the model's main-sequence factors (1.5 × L, 1.5 × R) and the blue-supergiant
-    // T_eff were chosen with these calibrations in view. The check keeps the model where it was calibrated.
-    // KE12: log C = 43.35 for ν L_ν at GALEX FUV (1528 Å): C_ν = 10^-43.35 · c/λ = 8.76e-29 Msun/yr per erg/s/Hz.
+  it('UV SFR calibrations: Kennicutt & Evans 2012 Table 1 FUV (Kroupa) within 10%; Madau & Dickinson 2014 1.15e-28 (Salpeter) within 30%', () => {
+    // The model's main-sequence factors (1.3 × L, 1.4 × R) and the blue-supergiant T_eff were chosen with
+    // Kennicutt 1998 at 1500 Å (uv-slope.test.ts) in view; the Kroupa value follows from the IMF without a
+    // further choice. KE12: log C = 43.35 for ν L_ν at GALEX FUV (1528 Å): C_ν = 10^-43.35 · c/λ = 8.76e-29 Msun/yr per erg/s/Hz.
+    // MD14 and Kennicutt 1998 differ by 22% between themselves, hence the 30% for MD14.
     const ke12 = 10 ** -43.35 * (2.99792458e10 / 1.528e-5);
-    expect(rel(kuv('salpeter'), 1.4e-28)).toBeLessThan(0.3);
+    const kroupaFuv = 1 / (100e6 * pop('kroupa').lnu(csf, 100, 0.1528));
+    expect(rel(kroupaFuv, ke12)).toBeLessThan(0.1);
     expect(rel(kuv('salpeter'), 1.15e-28)).toBeLessThan(0.3);
-    expect(rel(kuv('kroupa'), ke12)).toBeLessThan(0.3);
   });
 
   it('a top-heavy IMF gives less mass than Salpeter for the same UV light, at every allowed age', () => {
