@@ -9,8 +9,8 @@ export type { ChoiceSpec, NumericChoiceKey, SurveyNumberKey } from './choice-spe
 export { checkChoices, checkSurvey, problemText, SCHEMA_LIMITS } from './choice-schema.js';
 export type { ChoiceProblem } from './choice-schema.js';
 export { imfProblem, isKnownImf } from './imf-check.js';
-export { parseSample, parseNumberCell, KNOWN_COLUMNS } from './sample.js';
-export type { GalaxyInput, ParsedSample, RowProblem, SampleRow } from './sample.js';
+export { parseSample, parseNumberCell, editDistance, KNOWN_COLUMNS, GALAXY_Z, Z_ALT_MIN } from './sample.js';
+export type { GalaxyInput, LineEnd, ParsedSample, RowProblem, SampleRow } from './sample.js';
 export { parseSurveys, validateSurvey } from './survey.js';
 export type { Survey } from './survey.js';
 export { makeCeilingTable } from './ceiling.js';
@@ -25,3 +25,4 @@ export { makeRandom, mixSeed, idSeed, fnv1a32 } from './random.js';
 export { auditCsv, auditMarkdown } from './report.js';
 export { ceilingCurves, galaxyPoints } from './figures.js';
 export type { CeilingCurves, GalaxyPoints } from './figures.js';
+export { decodeText } from './text-decoding.js';
