@@ -1,3 +1,4 @@
+import { safeCsvText } from '../core/audit/output-safety.js';
 import { CliError } from './cli-error.js';
 
 /** Refuses to print a non-finite number: every value that leaves the tool is checked here. */
@@ -14,7 +15,7 @@ export function toJson(value: unknown): string {
 
 function csvCell(v: unknown): string {
   if (v === null || v === undefined) return '';
-  const s = typeof v === 'number' ? (Number.isFinite(v) ? String(v) : (() => { throw new CliError('internal: non-finite value in CSV'); })()) : Array.isArray(v) ? v.join(';') : String(v);
+  const s = typeof v === 'number' ? (Number.isFinite(v) ? String(v) : (() => { throw new CliError('internal: non-finite value in CSV'); })()) : safeCsvText(Array.isArray(v) ? v.join(';') : String(v));
   return /[",\n\r]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
 }
 

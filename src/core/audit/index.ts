@@ -26,3 +26,4 @@ export { auditCsv, auditMarkdown } from './report.js';
 export { ceilingCurves, galaxyPoints } from './figures.js';
 export type { CeilingCurves, GalaxyPoints } from './figures.js';
 export { decodeText } from './text-decoding.js';
+export { safeCsvText, csvCell, csvLine, escapeMarkdown } from './output-safety.js';
