@@ -9,6 +9,7 @@ import {
   type AuditChoices,
   type GalaxyRow,
 } from '../core/audit/index.js';
+import { once } from 'node:events';
 import { CliError } from './cli-error.js';
 import { assertFinite } from './output.js';
 import { auditRowsInOrder } from './parallel-audit.js';
@@ -30,6 +31,14 @@ function slim(g: GalaxyRow): GalaxyRow {
     input: { z: g.input.z ?? '' },
     ...(h && g.imf ? { headline_imf: h, imf: { [h]: g.imf[h] } } : {}),
   } as GalaxyRow;
+}
+
+/**
+ * Waits while stdout holds more than 4 MB not yet written (a pipe or /dev/null is written
+ * asynchronously; without this the whole output would queue in memory).
+ */
+async function backpressure(): Promise<void> {
+  if (process.stdout.writableLength > 4 << 20) await once(process.stdout, 'drain');
 }
 
 const indent = (json: string, pad: string): string => json.replace(/\n/g, `\n${pad}`);
@@ -63,6 +72,7 @@ export async function streamAudit(csv: string, choices: AuditChoices, jobs: numb
     for await (const g of rows) {
       out(auditCsvRow(g, layout));
       kept.push(slim(g));
+      await backpressure();
     }
     finishAudit(prep, kept);
     return;
@@ -75,6 +85,7 @@ export async function streamAudit(csv: string, choices: AuditChoices, jobs: numb
     if (pending !== undefined) out(pending + ',');
     pending = `    ${JSON.stringify(g)}`;
     kept.push(slim(g));
+    await backpressure();
   }
   if (pending !== undefined) out(pending);
   const res = finishAudit(prep, kept);
