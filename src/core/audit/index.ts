@@ -21,7 +21,7 @@ export { binBudget } from './sample-budget.js';
 export type { BinBudget, BudgetPoint } from './sample-budget.js';
 export { verdictFor } from './verdict.js';
 export type { Verdict, Attribution } from './verdict.js';
-export { makeRandom, mixSeed, idSeed, fnv1a32 } from './random.js';
+export { makeRandom, idSeed, fnv1a32 } from './random.js';
 export { auditCsv, auditCsvHeader, auditCsvRow, auditCsvFileRows, csvLayoutOf, auditMarkdown } from './report.js';
 export type { CsvLayout } from './report.js';
 export { ceilingCurves, galaxyPoints } from './figures.js';

@@ -3,11 +3,12 @@ import { isStrictNumber } from '../numeric/strict-number.js';
 
 /**
  * The sample file (CSV, header row). Our column names and units:
- *  id (text, required) · z (required, > 0) · z_lo, z_hi (68% interval) · z_alt, p_alt (second
+ *  id (text, required) · z (required, in GALAXY_Z) · z_lo, z_hi (68% interval) · z_alt, p_alt (second
  *  solution and its probability in [0, 1]) · brightness: muv (absolute AB at 1500 Å) | m_ab +
  *  lambda_obs_um (observed AB magnitude and band, μm) | log_mstar (log10 Msun) + imf_ref ·
  *  log_mstar_err (dex) · log_mstar_alt (log10 Msun if z_alt is right) · mag_err (mag) · beta ·
  *  beta_err · survey (name in the surveys file) · notes. Other columns are kept and echoed.
+ * Header names match case-insensitively and trimmed.
  */
 export const KNOWN_COLUMNS = [
   'id', 'z', 'z_lo', 'z_hi', 'z_alt', 'p_alt', 'muv', 'm_ab', 'lambda_obs_um', 'log_mstar', 'imf_ref',
