@@ -19,7 +19,7 @@ import { CliError } from '../cli-error.js';
 import { CHOICE_HELP, CHOICE_OPTIONS, flagOfField, numericChoices, specFlag } from '../choice-flags.js';
 import { HALO_HELP, HALO_OPTIONS, haloChoices } from '../halo-options.js';
 import { defaultJobs, maxJobs } from '../parallel-audit.js';
-import { INPUT_HELP, INPUT_OPTIONS, inputLimitBytes, readInput } from '../read-input.js';
+import { INPUT_OPTIONS, inputLimitBytes, readInput } from '../read-input.js';
 import { streamAudit } from '../stream-audit.js';
 import { imfList, sfhFrom, STAR_HELP, STAR_OPTIONS } from '../star-options.js';
 
@@ -43,7 +43,7 @@ ${CHOICE_HELP}
   --z-bins A:B,C:D     redshift bins for the sample densities (default: the survey range)
   --jobs N             worker threads for large samples (default: cores, for ≥ 24 rows; capped at the
                        available cores; same numbers as 1)
-${INPUT_HELP}
+  (--max-input-mb: see below)
 
 ${STAR_HELP}
 
