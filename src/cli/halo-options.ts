@@ -1,23 +1,25 @@
-import { readFileSync } from 'node:fs';
 import { MASS_FUNCTION_NAMES } from '../core/halos/index.js';
 import type { DeltaCSpec } from '../core/halos/index.js';
 import { parsePowerTable, TRANSFER_NAMES, type TransferSpec } from '../core/power/index.js';
 import { DELTA_C_SPEC } from '../core/audit/choice-specs.js';
 import { choice, num, type OptionSpec, type Parsed } from './args.js';
 import { CliError } from './cli-error.js';
+import { INPUT_HELP, INPUT_OPTIONS, inputLimitBytes, readInput } from './read-input.js';
 
 export const HALO_OPTIONS: OptionSpec = {
   model: { type: 'string' },
   transfer: { type: 'string' },
   'pk-file': { type: 'string' },
   'delta-c': { type: 'string' },
+  ...INPUT_OPTIONS,
 };
 
 export const HALO_HELP = `Halo abundance:
   --model NAME        mass function: ${MASS_FUNCTION_NAMES.join(', ')} (default sheth-tormen)
   --transfer NAME     ${TRANSFER_NAMES.join(', ')}, or table (needs --pk-file) (default eh98)
   --pk-file FILE      tabulated P(k) at z = 0: two columns, k [1/Mpc] and P [Mpc^3]
-  --delta-c X|omega-m collapse threshold in [1, 2.5] (default 1.686; omega-m = 1.686[1+0.0123 log10 Ωm(z)])`;
+  --delta-c X|omega-m collapse threshold in [1, 2.5] (default 1.686; omega-m = 1.686[1+0.0123 log10 Ωm(z)])
+${INPUT_HELP}`;
 
 export function haloChoices(values: Parsed['values']): { massFunction: string; transfer: TransferSpec; deltaC: DeltaCSpec } {
   const massFunction = choice('model', values.model, MASS_FUNCTION_NAMES, 'sheth-tormen');
@@ -26,12 +28,7 @@ export function haloChoices(values: Parsed['values']): { massFunction: string; t
   if (tName === 'table') {
     const file = values['pk-file'];
     if (typeof file !== 'string') throw new CliError('--transfer table needs --pk-file FILE');
-    let text: string;
-    try {
-      text = readFileSync(file, 'utf8');
-    } catch (e) {
-      throw new CliError(`--pk-file: cannot read ${file} (${(e as NodeJS.ErrnoException).code ?? 'error'})`);
-    }
+    const text = readInput(file, '--pk-file', inputLimitBytes(values));
     try {
       transfer = { kind: 'table', ...parsePowerTable(text, `--pk-file ${file}`) };
     } catch (e) {

@@ -8,7 +8,10 @@ import { runMass } from './commands/mass.js';
 import { runAssess } from './commands/assess.js';
 import './parallel-audit.js';
 
-const COMMANDS: Record<string, (argv: string[]) => string | Promise<string>> = {
+/** A subcommand returns its output, or writes it itself through `out` (streaming) and returns undefined. */
+type Command = (argv: string[], out: (s: string) => void, err: (s: string) => void) => string | undefined | Promise<string | undefined>;
+
+const COMMANDS: Record<string, Command> = {
   cosmo: runCosmo,
   halos: runHalos,
   rarest: runRarest,
@@ -27,7 +30,7 @@ Usage: npm run -s cli -- <subcommand> [flags]     (--help on any subcommand)
   mass     stellar mass per IMF from a magnitude or luminosity
   assess   the audit: required efficiency, verdicts and their causes for a sample`;
 
-export function registerCommand(name: string, run: (argv: string[]) => string | Promise<string>): void {
+export function registerCommand(name: string, run: Command): void {
   COMMANDS[name] = run;
 }
 
@@ -44,7 +47,8 @@ export async function main(argv: string[], out: (s: string) => void = (s) => pro
     return 2;
   }
   try {
-    out(await run(rest));
+    const text = await run(rest, out, err);
+    if (text !== undefined) out(text);
     return 0;
   } catch (e) {
     if (e instanceof CliError || e instanceof CosmologyError || e instanceof RangeError) {

@@ -1,60 +1,111 @@
 import { availableParallelism } from 'node:os';
 import { Worker, isMainThread, parentPort, workerData } from 'node:worker_threads';
-import { auditRow, finishAudit, prepareAudit, runAudit, type AuditChoices, type AuditResult, type GalaxyRow } from '../core/audit/index.js';
+import { auditRow, prepareAudit, type AuditChoices, type GalaxyRow, type PreparedAudit } from '../core/audit/index.js';
 
 /**
- * The audit on several cores: rows are dealt round-robin to the main thread and N − 1 worker threads
- * (each builds its own halo model and tables); the main thread then finishes the sample level.
- * Every galaxy draws from its own stream seeded by (seed, id), so the result is identical to a serial run.
+ * The audit's rows, in file order, from the main thread (one job) or from worker threads (each
+ * builds its own halo model and tables). Rows go out in batches of BATCH, batch b to thread
+ * b mod k; a thread may run at most CREDITS batches ahead of what has been written, so memory stays
+ * flat in the number of rows. Every galaxy draws from its own stream seeded by (seed, id), so the
+ * numbers are identical to a serial run.
  */
+const BATCH = 16;
+const CREDITS = 2;
+
 interface Job {
   readonly kind: 'baryon-audit-rows';
   readonly csv: string;
   readonly choices: AuditChoices;
-  readonly indices: number[];
+  readonly batches: number[];
+  readonly batchSize: number;
 }
+type Reply = { ok: true; batch: number; rows: GalaxyRow[] } | { ok: false; message: string };
 
 if (!isMainThread && (workerData as Job | undefined)?.kind === 'baryon-audit-rows') {
   const job = workerData as Job;
-  try {
-    const prep = prepareAudit(job.csv, job.choices);
-    parentPort!.postMessage({ ok: true, rows: job.indices.map((i) => [i, auditRow(prep, i)] as const) });
-  } catch (e) {
-    parentPort!.postMessage({ ok: false, message: (e as Error).message });
-  }
+  let credits = 0;
+  let wake: (() => void) | undefined;
+  parentPort!.on('message', () => {
+    credits++;
+    wake?.();
+  });
+  void (async () => {
+    try {
+      const prep = prepareAudit(job.csv, job.choices);
+      const n = prep.parsed.rows.length;
+      for (const b of job.batches) {
+        while (credits === 0) await new Promise<void>((r) => (wake = r));
+        credits--;
+        const rows: GalaxyRow[] = [];
+        for (let i = b * job.batchSize; i < Math.min(n, (b + 1) * job.batchSize); i++) rows.push(auditRow(prep, i));
+        parentPort!.postMessage({ ok: true, batch: b, rows } satisfies Reply);
+      }
+    } catch (e) {
+      parentPort!.postMessage({ ok: false, message: (e as Error).message } satisfies Reply);
+    }
+    parentPort!.close();
+  })();
 }
+
+/** The cores this process may use (os.availableParallelism): --jobs is capped there. */
+export const maxJobs = (): number => Math.max(1, availableParallelism());
 
 export function defaultJobs(rows: number): number {
-  return rows < 24 ? 1 : Math.max(1, Math.min(availableParallelism(), Math.ceil(rows / 12)));
+  return rows < 24 ? 1 : Math.max(1, Math.min(maxJobs(), Math.ceil(rows / 12)));
 }
 
-/** The audit on `jobs` threads (one: the plain runAudit). */
-export async function runAuditParallel(csv: string, choices: AuditChoices, jobs: number, entry: URL): Promise<AuditResult> {
-  if (jobs <= 1) return runAudit(csv, choices);
-  const prepMain = prepareAudit(csv, choices);
-  const n = prepMain.parsed.rows.length;
-  const k = Math.max(1, Math.min(jobs, n));
-  const parts: number[][] = Array.from({ length: k }, () => []);
-  for (let i = 0; i < n; i++) parts[i % k].push(i);
-  // The main thread takes the first share itself (no extra thread competing for the cores).
-  const [mine, ...theirs] = parts;
-  const pending = Promise.all(
-    theirs.map(
-      (indices) =>
-        new Promise<[number, GalaxyRow][]>((resolve, reject) => {
-          const w = new Worker(entry, { workerData: { kind: 'baryon-audit-rows', csv, choices, indices } satisfies Job });
-          w.once('message', (m: { ok: boolean; rows?: [number, GalaxyRow][]; message?: string }) => {
-            void w.terminate();
-            if (m.ok) resolve(m.rows!);
-            else reject(new RangeError(m.message));
-          });
-          w.once('error', reject);
-        }),
-    ),
-  );
-  const own = mine.map((i) => [i, auditRow(prepMain, i)] as [number, GalaxyRow]);
-  const results = [own, ...(await pending)];
-  const galaxies: GalaxyRow[] = new Array(n);
-  for (const part of results) for (const [i, row] of part) galaxies[i] = row;
-  return finishAudit(prepMain, galaxies);
+/** Every row's result in file order; `jobs` threads (one: this thread, no workers). */
+export async function* auditRowsInOrder(prep: PreparedAudit, jobs: number, entry: URL): AsyncGenerator<GalaxyRow> {
+  const n = prep.parsed.rows.length;
+  const nb = Math.ceil(n / BATCH);
+  const k = Math.max(1, Math.min(jobs, nb));
+  if (k <= 1) {
+    for (let i = 0; i < n; i++) yield auditRow(prep, i);
+    return;
+  }
+  const ready = new Map<number, GalaxyRow[]>();
+  let failure: Error | undefined;
+  let notify: (() => void) | undefined;
+  const poke = (): void => {
+    const f = notify;
+    notify = undefined;
+    f?.();
+  };
+  const workers = Array.from({ length: k }, (_, w) => {
+    const batches: number[] = [];
+    for (let b = w; b < nb; b += k) batches.push(b);
+    const worker = new Worker(entry, { workerData: { kind: 'baryon-audit-rows', csv: prep.sampleCsv, choices: prep.choices, batches, batchSize: BATCH } satisfies Job });
+    worker.on('message', (m: Reply) => {
+      if (m.ok) ready.set(m.batch, m.rows);
+      else failure ??= new Error(`a worker thread failed: ${m.message}`);
+      poke();
+    });
+    worker.on('error', (e) => {
+      failure ??= e;
+      poke();
+    });
+    worker.on('exit', (code) => {
+      if (code !== 0) failure ??= new Error(`a worker thread stopped with code ${code}`);
+      poke();
+    });
+    for (let c = 0; c < CREDITS; c++) worker.postMessage('credit');
+    return worker;
+  });
+  try {
+    for (let b = 0; b < nb; b++) {
+      while (!ready.has(b)) {
+        if (failure) throw failure;
+        await new Promise<void>((r) => (notify = r));
+      }
+      const rows = ready.get(b)!;
+      ready.delete(b);
+      workers[b % k].postMessage('credit');
+      yield* rows;
+    }
+  } finally {
+    for (const w of workers) {
+      w.removeAllListeners('exit');
+      void w.terminate();
+    }
+  }
 }

@@ -27,7 +27,7 @@ const SUBCOMMANDS: Record<string, { base: string[]; flags: string[] }> = {
   mass: { base: ['--z', '9', '--muv', '-21', '--imf', 'salpeter'], flags: ['--z', '--m-ab', '--lambda-obs-um', '--muv', '--lnu', '--lambda-rest-um', '--beta', '--av', '--format', ...STAR, ...COSMO] },
   assess: {
     base: ['--demo', '--draws', '200', '--imf', 'salpeter'],
-    flags: ['--record', '--area-arcmin2', '--z-range', '--survey-name', '--surveys', '--eps-ref', '--quantile', '--draws', '--seed', '--slice-dz', '--formation-z', '--z-bins', '--jobs', '--format', ...STAR, ...HALO, ...COSMO],
+    flags: ['--record', '--area-arcmin2', '--z-range', '--survey-name', '--surveys', '--headline-imf', '--eps-ref', '--quantile', '--draws', '--seed', '--slice-dz', '--formation-z', '--z-bins', '--jobs', '--max-input-mb', '--format', ...STAR, ...HALO, ...COSMO],
   },
 };
 

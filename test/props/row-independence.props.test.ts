@@ -8,8 +8,8 @@ const HEADER = 'id,z,z_lo,z_hi,muv,mag_err';
 const GOOD = ['G-1,9.1,8.9,9.4,-21.2,0.1', 'G-2,10.4,10.1,10.8,-20.5,0.2', 'G-3,7.6,7.4,7.9,-22.0,0.15', 'G-4,12.2,11.7,12.6,-20.9,0.1'];
 const BAD = ['X-1,nine,,,-20,0.1', 'X-2,9,,,,', 'X-3,9,,,-20,-1', ',9,,,-20,0.1', 'X-5,9,,,-20'];
 
-/** A galaxy's numbers without its row number (which does follow its position). */
-const numbers = (g: GalaxyRow): unknown => ({ ...g, row: undefined, errors: g.errors.map((e) => ({ ...e, row: undefined })) });
+/** A galaxy's numbers without its row and line numbers (which do follow its position). */
+const numbers = (g: GalaxyRow): unknown => ({ ...g, row: undefined, lines: undefined, line_end: undefined, errors: g.errors.map((e) => ({ ...e, row: undefined })) });
 const byId = (rows: GalaxyRow[]): Map<string, unknown> => new Map(rows.filter((g) => g.status === 'ok').map((g) => [g.id, numbers(g)]));
 
 describe('a row\'s result depends on that row alone', () => {

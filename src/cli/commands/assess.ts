@@ -1,4 +1,3 @@
-import { readFileSync } from 'node:fs';
 import {
   auditCsv,
   auditMarkdown,
@@ -19,8 +18,9 @@ import { COSMOLOGY_HELP, COSMOLOGY_OPTIONS, cosmologyFrom, format, num, parse } 
 import { CliError } from '../cli-error.js';
 import { CHOICE_HELP, CHOICE_OPTIONS, flagOfField, numericChoices, specFlag } from '../choice-flags.js';
 import { HALO_HELP, HALO_OPTIONS, haloChoices } from '../halo-options.js';
-import { toJson } from '../output.js';
-import { defaultJobs, runAuditParallel } from '../parallel-audit.js';
+import { defaultJobs, maxJobs } from '../parallel-audit.js';
+import { INPUT_OPTIONS, inputLimitBytes, readInput } from '../read-input.js';
+import { streamAudit } from '../stream-audit.js';
 import { imfList, sfhFrom, STAR_HELP, STAR_OPTIONS } from '../star-options.js';
 
 export const ASSESS_HELP = `Usage: assess SAMPLE.csv --area-arcmin2 40 --z-range 7:11 [--imf ...] [--eps-ref 0.3] [--quantile 0.997]
@@ -41,21 +41,15 @@ Survey and choices:
                        --imf; always compared)
 ${CHOICE_HELP}
   --z-bins A:B,C:D     redshift bins for the sample densities (default: the survey range)
-  --jobs N             worker threads for large samples (default: cores, for ≥ 24 rows; same numbers as 1)
+  --jobs N             worker threads for large samples (default: cores, for ≥ 24 rows; capped at the
+                       available cores; same numbers as 1)
+  (--max-input-mb: see below)
 
 ${STAR_HELP}
 
 ${HALO_HELP}
 
 ${COSMOLOGY_HELP}`;
-
-function readText(path: string, flag: string): string {
-  try {
-    return readFileSync(path, 'utf8');
-  } catch (e) {
-    throw new CliError(`${flag}: cannot read ${path} (${(e as NodeJS.ErrnoException).code ?? 'error'})`);
-  }
-}
 
 const AREA = specByKey(SURVEY_SPECS, 'areaArcmin2');
 const Z_MIN = specByKey(SURVEY_SPECS, 'zMin');
@@ -72,9 +66,9 @@ function range(flag: string, raw: string, lo: ChoiceSpec, hi: ChoiceSpec): [numb
 }
 
 /** Flags that only make sense for a new audit; beside --record they are refused, not ignored. */
-const RECORD_ALLOWS = new Set(['record', 'format', 'jobs', 'help']);
+const RECORD_ALLOWS = new Set(['record', 'format', 'jobs', 'help', 'max-input-mb']);
 
-export async function runAssess(argv: string[]): Promise<string> {
+export async function runAssess(argv: string[], out: (s: string) => void = () => undefined, err: (s: string) => void = () => undefined): Promise<string | undefined> {
   const { values, positionals } = parse(
     argv,
     {
@@ -88,6 +82,7 @@ export async function runAssess(argv: string[]): Promise<string> {
       ...CHOICE_OPTIONS,
       'z-bins': { type: 'string' },
       jobs: { type: 'string' },
+      ...INPUT_OPTIONS,
       ...STAR_OPTIONS,
       ...HALO_OPTIONS,
       ...COSMOLOGY_OPTIONS,
@@ -95,7 +90,8 @@ export async function runAssess(argv: string[]): Promise<string> {
     true,
   );
   if (values.help) return ASSESS_HELP;
-  const fmt = format(values, ['json', 'csv', 'md']);
+  const fmt = format(values, ['json', 'csv', 'md']) as 'json' | 'csv' | 'md';
+  const limit = inputLimitBytes(values);
   let csv: string;
   let choices: AuditChoices;
   if (typeof values.record === 'string') {
@@ -105,7 +101,7 @@ export async function runAssess(argv: string[]): Promise<string> {
     }
     let rec;
     try {
-      rec = validateRecord(JSON.parse(readText(values.record, '--record')));
+      rec = validateRecord(JSON.parse(readInput(values.record, '--record', limit)));
     } catch (e) {
       if (e instanceof CliError) throw e;
       throw new CliError(`--record ${values.record}: ${(e as Error).message}`);
@@ -116,7 +112,7 @@ export async function runAssess(argv: string[]): Promise<string> {
     if (positionals.length > 1) throw new CliError(`give one sample file (got ${positionals.length})`);
     const demo = values.demo === true;
     if (!demo && positionals.length === 0) throw new CliError('give a sample file (SAMPLE.csv), --demo or --record FILE');
-    csv = demo ? DEMO_SAMPLE_CSV : readText(positionals[0], 'sample');
+    csv = demo ? DEMO_SAMPLE_CSV : readInput(positionals[0], 'sample', limit);
     let survey: Survey;
     if (demo && values['area-arcmin2'] === undefined && values['z-range'] === undefined) survey = DEMO_SURVEY;
     else {
@@ -129,7 +125,7 @@ export async function runAssess(argv: string[]): Promise<string> {
     }
     let surveys: Survey[] = [];
     if (typeof values.surveys === 'string') {
-      const parsed = parseSurveys(readText(values.surveys, '--surveys'));
+      const parsed = parseSurveys(readInput(values.surveys, '--surveys', limit));
       if (parsed.errors.length) throw new CliError(`--surveys ${values.surveys}: ${parsed.errors[0]}`);
       surveys = parsed.surveys;
     }
@@ -162,11 +158,14 @@ export async function runAssess(argv: string[]): Promise<string> {
       throw new CliError(`${flag ? flag + ' ' : ''}(${p.field}) ${p.reason}`);
     }
   }
-  const rowsGuess = csv.split('\n').length - 1;
-  const jobs = values.jobs === undefined ? defaultJobs(rowsGuess) : num('jobs', values.jobs, { min: 1, max: 64 });
+  let rowsGuess = 0;
+  for (let i = csv.indexOf('\n'); i >= 0; i = csv.indexOf('\n', i + 1)) rowsGuess++;
+  let jobs = values.jobs === undefined ? defaultJobs(rowsGuess) : num('jobs', values.jobs, { min: 1, max: 1024 });
   if (!Number.isInteger(jobs)) throw new CliError(`--jobs must be a whole number (got ${values.jobs})`);
-  const result = await runAuditParallel(csv, choices, jobs, new URL(import.meta.url));
-  if (fmt === 'csv') return auditCsv(result);
-  if (fmt === 'md') return auditMarkdown(result);
-  return toJson(result);
+  if (jobs > maxJobs()) {
+    err(`note: --jobs ${jobs} capped at ${maxJobs()}, the cores available to this process (more threads than cores only slow the audit down)`);
+    jobs = maxJobs();
+  }
+  await streamAudit(csv, choices, jobs, new URL(import.meta.url), fmt, out);
+  return undefined;
 }

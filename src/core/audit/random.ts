@@ -7,14 +7,6 @@ export interface RandomStream {
   normal(): number;
 }
 
-/** Mixes a user seed and a row index into one 32-bit seed (splitmix-style multiply–xorshift). */
-export function mixSeed(seed: number, index: number): number {
-  let h = (Math.imul(seed | 0, 0x9e3779b1) ^ Math.imul(index + 1, 0x85ebca6b)) >>> 0;
-  h = Math.imul(h ^ (h >>> 16), 0x7feb352d) >>> 0;
-  h = Math.imul(h ^ (h >>> 15), 0x846ca68b) >>> 0;
-  return (h ^ (h >>> 16)) | 0;
-}
-
 /**
  * The seed of one galaxy's random stream, from the run seed and the galaxy's own id, so a row's
  * numbers do not depend on its position, on other (or bad) rows, or on the number of threads:

@@ -1,7 +1,7 @@
-import Papa from 'papaparse';
 import { PRESETS } from '../cosmology/presets.js';
 import type { AuditChoices } from './choices.js';
 import { citeInText, referencesFor } from './citations.js';
+import { csvLine, escapeMarkdown as md } from './output-safety.js';
 import type { AuditResult, GalaxyRow } from './run-audit.js';
 import type { BinBudget } from './sample-budget.js';
 import type { Reconciliation } from './reconcile.js';
@@ -9,56 +9,72 @@ import { verdictFor } from './verdict.js';
 
 const fmtE = (x: number): string => (x >= 999 ? '> 999' : x >= 10 ? x.toFixed(0) : x >= 0.1 ? x.toFixed(2) : x.toExponential(1));
 
-/** One CSV row per galaxy: identity, verdicts, per-IMF numbers, then every input column echoed (prefixed in_). */
-export function auditCsv(r: AuditResult): string {
-  const imfs = [...new Set(r.galaxies.flatMap((g) => (g.imf ? Object.keys(g.imf) : [])))];
-  const inputCols = [...new Set(r.galaxies.flatMap((g) => Object.keys(g.input)))];
-  const rows = r.galaxies.map((g) => {
-    const o: Record<string, string | number> = {
-      row: g.row,
-      id: g.id,
-      status: g.status,
-      errors: g.errors.map((e) => `row ${e.row}, ${e.column}: ${e.reason}`).join(' | '),
-      verdict: g.verdict ?? '',
-      attribution: (g.attribution ?? []).join('; '),
-      headline_imf: g.headline_imf ?? '',
-      attribution_detail: (g.attribution_detail ?? []).map((d) => `${d.cause} via ${d.via} → ${d.verdict_after}`).join('; '),
-      halo_mass_at_quantile_msun: g.ceiling?.halo_mass_at_quantile_msun ?? '',
-      eddington_shift_dex: g.eddington?.shift_dex ?? '',
-      time_budget_ratio: g.time_budget?.ratio ?? '',
-      time_budget_p_ratio_over_1: g.time_budget?.p_ratio_over_1 ?? '',
-      formed_mass_msun: g.time_budget?.formed_mass_msun ?? '',
-      accreted_baryons_msun: g.time_budget?.accreted_baryons_msun ?? '',
-    };
-    for (const rc of g.reconcile ?? []) {
-      const k = rc.eps === 1 ? 'eps1' : 'eps_ref';
-      o[`reconcile_${k}_z_max`] = rc.z_max ?? '';
-      o[`reconcile_${k}_imf_slope_max`] = rc.imf_slope_max ?? '';
-      o[`reconcile_${k}_sigma8_min`] = rc.sigma8_min ?? '';
-      o[`reconcile_${k}_power_boost_min`] = rc.power_boost_min ?? '';
-      o[`reconcile_${k}_area_min_arcmin2`] = rc.area_min_arcmin2 ?? '';
-      o[`reconcile_${k}_expected_hosts`] = rc.expected_hosts;
-      o[`reconcile_${k}_notes`] = Object.entries(rc.reasons).map(([a, t]) => `${a}: ${t}`).join('; ');
-    }
-    for (const i of imfs) {
-      const x = g.imf?.[i];
-      o[`${i}_verdict`] = x?.verdict ?? '';
-      o[`${i}_log_mstar_median`] = x?.log_mstar_median ?? '';
-      o[`${i}_eps_required_median`] = x?.eps_required_median ?? '';
-      o[`${i}_eps_required_p05`] = x?.eps_required_p05 ?? '';
-      o[`${i}_p_over_budget`] = x?.p_over_budget ?? '';
-      o[`${i}_p_strained`] = x?.p_strained ?? '';
-      o[`${i}_eps_required_median_debiased`] = x?.eps_required_median_debiased ?? '';
-      o[`${i}_time_budget_ratio_median`] = x?.time_budget_ratio_median ?? '';
-      o[`${i}_p_time_budget_over`] = x?.p_time_budget_over ?? '';
-    }
-    for (const c of inputCols) o[`in_${c}`] = g.input[c] ?? '';
-    return o;
-  });
-  return Papa.unparse(rows, { newline: '\n' });
+/** The CSV's columns: the per-IMF blocks and the echoed input columns, fixed before the first row. */
+export interface CsvLayout {
+  readonly imfs: readonly string[];
+  readonly inputColumns: readonly string[];
 }
 
-const capitalise = (t: string): string => t.charAt(0).toUpperCase() + t.slice(1);
+const CSV_FIXED = ['row', 'lines', 'line_end', 'id', 'status', 'errors', 'verdict', 'attribution', 'attribution_detail', 'headline_imf', 'halo_mass_at_quantile_msun', 'log_mass_cosmo_sd_dex', 'eddington_shift_dex', 'time_budget_ratio', 'time_budget_p_ratio_over_1', 'formed_mass_msun', 'accreted_baryons_msun'];
+/** What it would take, for ε = 1 and ε_ref (empty for galaxies within budget). */
+const CSV_RECONCILE = ['z_max', 'imf_slope_max', 'sigma8_min', 'power_boost_min', 'area_min_arcmin2', 'expected_hosts', 'notes'] as const;
+const RECONCILE_COLUMNS = ['eps1', 'eps_ref'].flatMap((t) => CSV_RECONCILE.map((k) => `reconcile_${t}_${k}`));
+const CSV_PER_IMF = ['verdict', 'log_mstar_median', 'eps_required_median', 'eps_required_p05', 'p_over_budget', 'p_strained', 'p_over_budget_cosmo', 'eps_required_median_debiased', 'time_budget_ratio_median', 'p_time_budget_over'] as const;
+
+/** The compared IMFs first, then any imf_ref that is not among them, in order of appearance. */
+export function csvLayoutOf(comparedImfs: readonly string[], galaxyImfs: Iterable<string>, inputColumns: Iterable<string>): CsvLayout {
+  return { imfs: [...new Set([...comparedImfs, ...galaxyImfs])], inputColumns: [...new Set(inputColumns)] };
+}
+
+export function auditCsvHeader(l: CsvLayout): string {
+  return csvLine([...CSV_FIXED, ...RECONCILE_COLUMNS, ...l.imfs.flatMap((i) => CSV_PER_IMF.map((k) => `${i}_${k}`)), ...l.inputColumns.map((c) => `in_${c}`)]);
+}
+
+/** Problems with the file as a whole, as rows of their own (status "file error" / "file warning"), so a CSV reader sees them. */
+export function auditCsvFileRows(l: CsvLayout, fileErrors: readonly string[], fileWarnings: readonly string[]): string[] {
+  const width = CSV_FIXED.length + RECONCILE_COLUMNS.length + l.imfs.length * CSV_PER_IMF.length + l.inputColumns.length;
+  const row = (status: string, msg: string): string => csvLine(['', '', '', '', status, msg, ...new Array<string>(width - 6).fill('')]);
+  return [...fileErrors.map((m) => row('file error', m)), ...fileWarnings.map((m) => row('file warning', m))];
+}
+
+/** One galaxy as one CSV line: identity, verdicts, per-IMF numbers, then every input column echoed (in_<name>). */
+export function auditCsvRow(g: GalaxyRow, l: CsvLayout): string {
+  const cells: (string | number | undefined)[] = [
+    g.row,
+    g.lines ? `${g.lines[0]}-${g.lines[1]}` : '',
+    g.line_end,
+    g.id,
+    g.status,
+    g.errors.map((e) => `row ${e.row}, ${e.column}: ${e.reason}`).join(' | '),
+    g.verdict ?? '',
+    (g.attribution ?? []).join('; '),
+    (g.attribution_detail ?? []).map((d) => `${d.cause} via ${d.via} → ${d.verdict_after}`).join('; '),
+    g.headline_imf ?? '',
+    g.ceiling?.halo_mass_at_quantile_msun,
+    g.ceiling?.log_mass_cosmo_sd_dex,
+    g.eddington?.shift_dex,
+    g.time_budget?.ratio,
+    g.time_budget?.p_ratio_over_1,
+    g.time_budget?.formed_mass_msun,
+    g.time_budget?.accreted_baryons_msun,
+  ];
+  for (const target of ['eps1', 'eps_ref']) {
+    const rc = (g.reconcile ?? []).find((x) => (target === 'eps1' ? x.eps === 1 : x.eps !== 1)) ?? (target === 'eps_ref' ? (g.reconcile ?? [])[0] : undefined);
+    cells.push(rc?.z_max ?? '', rc?.imf_slope_max ?? '', rc?.sigma8_min ?? '', rc?.power_boost_min ?? '', rc?.area_min_arcmin2 ?? '', rc?.expected_hosts, rc ? Object.entries(rc.reasons).map(([a, t]) => `${a}: ${t}`).join('; ') : '');
+  }
+  for (const i of l.imfs) {
+    const x = g.imf?.[i];
+    for (const k of CSV_PER_IMF) cells.push(x?.[k]);
+  }
+  for (const c of l.inputColumns) cells.push(g.input[c] ?? '');
+  return csvLine(cells);
+}
+
+/** The whole CSV (the page's download; the CLI writes the same lines one by one). */
+export function auditCsv(r: AuditResult): string {
+  const l = csvLayoutOf(r.record.choices.imfs, r.galaxies.flatMap((g) => (g.imf ? Object.keys(g.imf) : [])), r.galaxies.flatMap((g) => Object.keys(g.input)));
+  return [auditCsvHeader(l), ...auditCsvFileRows(l, r.sample.file_errors, r.sample.file_warnings ?? []), ...r.galaxies.map((g) => auditCsvRow(g, l))].join('\n');
+}
 
 /** Which published preset the cosmology is, if any (for the reference list). */
 function presetName(c: AuditChoices): string | undefined {
@@ -72,7 +88,7 @@ export function attributionSentence(g: GalaxyRow): string {
   if (d.length === 1 && d[0].cause === 'holds under every IMF') return ' No compared IMF lowers its verdict, nor does any other check.';
   const clauses: string[] = [];
   const imf = d.filter((x) => x.cause === 'IMF-driven');
-  if (imf.length) clauses.push(`another IMF (${imf.map((x) => `${citeInText(x.via)}: ${x.verdict_after}`).join('; ')})`);
+  if (imf.length) clauses.push(`another IMF (${imf.map((x) => `${md(citeInText(x.via))}: ${x.verdict_after}`).join('; ')})`);
   for (const x of d.filter((y) => y.cause === 'redshift-driven')) clauses.push(`the other redshift (${x.via}: ${x.verdict_after})`);
   for (const x of d.filter((y) => y.cause === 'volume-driven')) clauses.push(`cosmic variance (${x.verdict_after})`);
   for (const x of d.filter((y) => y.cause === 'Eddington-driven')) clauses.push(`the Eddington correction, ${x.via} (${x.verdict_after})`);
@@ -116,15 +132,15 @@ export function reconcileSentence(rc: Reconciliation, epsRef: number, epsMedian:
 
 function galaxyParagraph(g: GalaxyRow, r: AuditResult): string {
   const c = r.record.choices;
-  if (g.status === 'rejected') return `**${g.id || `row ${g.row}`}**: not audited. ${g.errors.map((e) => `${e.column}: ${e.reason}`).join('; ')}.`;
+  if (g.status === 'rejected') return `**${g.id ? md(g.id) : `row ${g.row}`}**: not audited. ${g.errors.map((e) => `${md(e.column)}: ${md(e.reason)}`).join('; ')}.`;
   const h = g.imf![g.headline_imf!];
   const others = Object.entries(g.imf!)
     .filter(([k]) => k !== g.headline_imf)
-    .map(([k, v]) => `${citeInText(k)} ε ≈ ${fmtE(v.eps_required_median)} (${v.verdict})`)
+    .map(([k, v]) => `${md(citeInText(k))} ε ≈ ${fmtE(v.eps_required_median)} (${v.verdict})`)
     .join(', ');
   const rz = g.redshift_checks!.map((x) => `at ${x.kind} = ${x.z} it needs ε ≈ ${fmtE(x.eps_required_median)} (${x.verdict})`).join('; ');
   return (
-    `**${g.id}** (z = ${g.input.z}) is **${g.verdict}** under ${citeInText(g.headline_imf!)}, the headline IMF. Its log M* = ${h.log_mstar_median.toFixed(2)} ` +
+    `**${md(g.id)}** (z = ${md(g.input.z)}) is **${g.verdict}** under ${md(citeInText(g.headline_imf!))}, the headline IMF. Its log M* = ${h.log_mstar_median.toFixed(2)} ` +
     `(16–84%: ${h.log_mstar_p16.toFixed(2)}–${h.log_mstar_p84.toFixed(2)}) needs a star-formation efficiency ε ≈ ${fmtE(h.eps_required_median)} ` +
     `(5th percentile ${fmtE(h.eps_required_p05)}) of the baryons in the most massive halo expected at the ${(c.quantile * 100).toFixed(1)}% level ` +
     `in its slice ${g.ceiling!.slice_z_min.toFixed(2)} < z < ${g.ceiling!.slice_z_max.toFixed(2)} (M_halo = ${g.ceiling!.halo_mass_at_quantile_msun.toExponential(2)} Msun); ` +
@@ -135,7 +151,7 @@ function galaxyParagraph(g: GalaxyRow, r: AuditResult): string {
     (rz ? ` Redshift checks: ${rz}.` : '') +
     attributionSentence(g) +
     (g.reconcile ?? []).map((rc) => reconcileSentence(rc, c.epsRef, h.eps_required_median)).join('') +
-    (g.notes!.length ? ` Notes: ${g.notes!.join('; ')}.` : '')
+    (g.notes!.length ? ` Notes: ${g.notes!.map(md).join('; ')}.` : '')
   );
 }
 
@@ -145,7 +161,7 @@ export function sampleSentence(b: BinBudget, c: AuditChoices): string {
   if (!b.points.length) return `${head} no galaxy was audited.`;
   const worst = b.points.reduce((a, p) => (p.eps_required_q > a.eps_required_q ? p : a));
   const v = verdictFor(worst.eps_required_q, c.epsRef);
-  const who = worst.count === 1 ? `its most massive galaxy (${worst.id})` : `its ${worst.count} most massive galaxies (down to ${worst.id})`;
+  const who = worst.count === 1 ? `its most massive galaxy (${md(worst.id)})` : `its ${worst.count} most massive galaxies (down to ${md(worst.id)})`;
   const verdictWords =
     v === 'over budget' ? 'more than all the baryons of the haloes ΛCDM predicts there: over budget' : v === 'strained' ? `above the reference ε = ${c.epsRef}: strained` : 'within budget';
   return (
@@ -171,11 +187,19 @@ export function auditMarkdown(r: AuditResult): string {
     `Assumptions: the ${citeInText(c.massFunction)} halo mass function with the ${citeInText(c.transfer.kind)} linear power spectrum; ` +
       `${preset ? `the ${citeInText(preset)} cosmology, ` : ''}H0 = ${c.cosmology.h0}, Ωm = ${c.cosmology.omegaM}, ` +
       `Ωb = ${c.cosmology.omegaB.toFixed(5)} (f_b = ${(c.cosmology.omegaB / c.cosmology.omegaM).toFixed(4)}), σ8 = ${c.cosmology.sigma8}; ` +
-      `survey ${c.survey.name}: ${c.survey.areaArcmin2} arcmin², ${c.survey.zMin} < z < ${c.survey.zMax}; redshift slices of Δz = ${c.sliceDz}; ` +
-      `rarest-halo quantile ${c.quantile} (extreme-value statistics, ${citeInText('evs')}); ε_ref = ${c.epsRef}; SFH ${c.sfh}; ` +
-      `IMFs ${c.imfs.map(citeInText).join(', ')}; ${c.draws} Monte Carlo draws, seed ${c.seed}.`,
+      `survey ${md(c.survey.name)}: ${c.survey.areaArcmin2} arcmin², ${c.survey.zMin} < z < ${c.survey.zMax}; redshift slices of Δz = ${c.sliceDz}; ` +
+      `rarest-halo quantile ${c.quantile} (extreme-value statistics, ${citeInText('evs')}); ε_ref = ${c.epsRef}; SFH ${md(c.sfh)}; ` +
+      `IMFs ${c.imfs.map((i) => md(citeInText(i))).join(', ')}; ${c.draws} Monte Carlo draws, seed ${c.seed}.`,
     '',
   );
+  const fe = r.sample.file_errors;
+  const fw = r.sample.file_warnings ?? [];
+  if (fe.length || fw.length) {
+    lines.push('## The sample file', '');
+    for (const m of fe) lines.push(`- **Error:** ${md(m)}`);
+    for (const m of fw) lines.push(`- Warning: ${md(m)}`);
+    lines.push('');
+  }
   lines.push('## Galaxies', '');
   for (const g of r.galaxies) lines.push(galaxyParagraph(g, r), '');
   lines.push('## Sample', '');

@@ -7,7 +7,7 @@ import { makeCeilingUncertainty, type CeilingUncertainty } from './ceiling-uncer
 import { normalizeChoices, validateChoices, type AuditChoices } from './choices.js';
 import { boxSigmaDm } from './cosmic-variance.js';
 import { auditGalaxy, type AuditContext, type GalaxyAudit } from './galaxy-audit.js';
-import { parseSample, type ParsedSample, type RowProblem } from './sample.js';
+import { parseSample, type LineEnd, type ParsedSample, type RowProblem } from './sample.js';
 import { binBudget, type BinBudget, type BudgetMember } from './sample-budget.js';
 import type { Survey } from './survey.js';
 import type { Verdict } from './verdict.js';
@@ -21,6 +21,9 @@ export const AUDIT_CAUTION =
 
 export interface GalaxyRow extends Partial<GalaxyAudit> {
   readonly row: number;
+  /** The physical lines of the file this row came from (1-based, inclusive) and how the last one ended. */
+  readonly lines: readonly [number, number];
+  readonly line_end: LineEnd;
   readonly id: string;
   readonly status: 'ok' | 'rejected';
   readonly errors: RowProblem[];
@@ -31,7 +34,7 @@ export interface GalaxyRow extends Partial<GalaxyAudit> {
 
 export interface AuditResult {
   readonly galaxies: GalaxyRow[];
-  readonly sample: { readonly bins: BinBudget[]; readonly accepted: number; readonly rejected: number; readonly extra_columns: readonly string[]; readonly file_errors: readonly string[] };
+  readonly sample: { readonly bins: BinBudget[]; readonly accepted: number; readonly rejected: number; readonly extra_columns: readonly string[]; readonly file_errors: readonly string[]; readonly file_warnings: readonly string[]; readonly lines: ParsedSample['lines'] };
   readonly caution: string;
   readonly record: AuditRecord;
 }
@@ -165,7 +168,7 @@ export function auditRow(prep: PreparedAudit, index: number): GalaxyRow {
   const r = prep.parsed.rows[index];
   const choices = prep.choices;
   const named = new Set(choices.surveys.map((s) => s.name));
-  const base = { row: r.row, id: (r.raw.id ?? '').trim(), input: r.raw, survey: r.galaxy?.survey ?? choices.survey.name };
+  const base = { row: r.row, lines: r.lines, line_end: r.lineEnd, id: (r.raw.id ?? '').trim(), input: r.raw, survey: r.galaxy?.survey ?? choices.survey.name };
   if (r.status === 'rejected') return { ...base, status: 'rejected', errors: [...r.errors] };
   if (r.galaxy!.survey && !named.has(r.galaxy!.survey)) {
     return { ...base, status: 'rejected', errors: [{ row: r.row, column: 'survey', reason: `"${r.galaxy!.survey}" is not in the surveys file (known: ${[...named].join(', ') || 'none'})` }] };
@@ -208,6 +211,8 @@ export function finishAudit(prep: PreparedAudit, galaxies: GalaxyRow[]): AuditRe
       rejected: galaxies.filter((g) => g.status === 'rejected').length,
       extra_columns: parsed.extraColumns,
       file_errors: parsed.fileErrors,
+      file_warnings: parsed.fileWarnings,
+      lines: parsed.lines,
     },
     caution: AUDIT_CAUTION,
     record: { tool: TOOL_NAME, version: TOOL_VERSION, format: RECORD_FORMAT, sample_csv: prep.sampleCsv, choices },

@@ -3,11 +3,12 @@ import { isStrictNumber } from '../numeric/strict-number.js';
 
 /**
  * The sample file (CSV, header row). Our column names and units:
- *  id (text, required) · z (required, > 0) · z_lo, z_hi (68% interval) · z_alt, p_alt (second
+ *  id (text, required) · z (required, in GALAXY_Z) · z_lo, z_hi (68% interval) · z_alt, p_alt (second
  *  solution and its probability in [0, 1]) · brightness: muv (absolute AB at 1500 Å) | m_ab +
  *  lambda_obs_um (observed AB magnitude and band, μm) | log_mstar (log10 Msun) + imf_ref ·
  *  log_mstar_err (dex) · log_mstar_alt (log10 Msun if z_alt is right) · mag_err (mag) · beta ·
  *  beta_err · survey (name in the surveys file) · notes. Other columns are kept and echoed.
+ * Header names match case-insensitively and trimmed.
  */
 export const KNOWN_COLUMNS = [
   'id', 'z', 'z_lo', 'z_hi', 'z_alt', 'p_alt', 'muv', 'm_ab', 'lambda_obs_um', 'log_mstar', 'imf_ref',
@@ -55,9 +56,19 @@ export interface GalaxyInput {
   readonly notes?: string;
 }
 
+/** How a physical line of the file ended. */
+export type LineEnd = 'LF' | 'CRLF' | 'CR' | 'none';
+
 export interface SampleRow {
   readonly row: number;
-  /** Every cell exactly as given, by column name (unknown columns included). */
+  /** The physical lines of the file this row spans, 1-based inclusive (a quoted cell may hold line breaks). */
+  readonly lines: readonly [number, number];
+  /** How its last line ended. */
+  readonly lineEnd: LineEnd;
+  /**
+   * Every cell exactly as given, by column name (unknown columns included; a header cell left empty
+   * and cells beyond the header are named "(column N)"). A null-prototype object: any name is kept.
+   */
   readonly raw: Readonly<Record<string, string>>;
   readonly status: 'ok' | 'rejected';
   readonly galaxy?: GalaxyInput;
@@ -68,10 +79,15 @@ export interface ParsedSample {
   readonly columns: readonly string[];
   readonly extraColumns: readonly string[];
   readonly rows: readonly SampleRow[];
-  /** Problems with the file as a whole (no header, no id/z column, …). */
+  /** Problems with the file as a whole (no header, no id/z column, a repeated column, an unclosed quote, …). */
   readonly fileErrors: readonly string[];
+  /** Things worth knowing that cost no data (a column name close to one of ours, mixed line ends). */
+  readonly fileWarnings: readonly string[];
+  /** Physical lines: how many, and which were empty (skipped). Header + rows' lines + empty = total. */
+  readonly lines: { readonly total: number; readonly header: readonly [number, number]; readonly empty: readonly number[] };
+  /** Set when the file cannot be audited at all (no header with id and z): one line saying why. */
+  readonly fatal?: string;
 }
-
 
 /** Strict number: plain decimal or exponent notation; no thousands separators, no comma decimals. */
 export function parseNumberCell(text: string): { value?: number; reason?: string } {
@@ -88,28 +104,147 @@ export function parseNumberCell(text: string): { value?: number; reason?: string
   return { value: v };
 }
 
+/** Other names people give our columns (common practice, no source): a "did you mean" hint, never a mapping. */
+const ALIASES: Readonly<Record<string, string>> = {
+  redshift: 'z', zphot: 'z', z_phot: 'z', photoz: 'z', z_best: 'z', zspec: 'z', z_spec: 'z',
+  m_uv: 'muv', abs_mag: 'muv', absmag: 'muv', logm: 'log_mstar', log_mass: 'log_mstar', logmstar: 'log_mstar', lgm: 'log_mstar',
+  mstar: 'log_mstar', name: 'id', galaxy: 'id', object: 'id', comment: 'notes', comments: 'notes', note: 'notes',
+};
+
+/** Levenshtein distance (insert, delete, substitute; common practice, no source), capped work for short names. */
+export function editDistance(a: string, b: string): number {
+  if (Math.abs(a.length - b.length) > 3) return 99;
+  let prev = Array.from({ length: b.length + 1 }, (_, j) => j);
+  for (let i = 1; i <= a.length; i++) {
+    const cur = [i];
+    for (let j = 1; j <= b.length; j++) cur.push(Math.min(prev[j] + 1, cur[j - 1] + 1, prev[j - 1] + (a[i - 1] === b[j - 1] ? 0 : 1)));
+    prev = cur;
+  }
+  return prev[b.length];
+}
+
+function suggestColumn(name: string): string | undefined {
+  const n = name.toLowerCase().replace(/[\s-]+/g, '_');
+  if (ALIASES[n]) return ALIASES[n];
+  let best: string | undefined;
+  let bestD = 3;
+  for (const k of KNOWN_COLUMNS) {
+    const d = editDistance(n, k);
+    if (d < bestD && d < k.length) {
+      best = k;
+      bestD = d;
+    }
+  }
+  return best;
+}
+
+const lineRange = (a: number, b: number): string => (a === b ? `line ${a}` : `lines ${a}–${b}`);
+const listLines = (xs: readonly number[]): string => (xs.length > 8 ? `${xs.slice(0, 8).join(', ')} and ${xs.length - 8} more` : xs.join(', '));
+
+interface RawRecord {
+  cells: string[];
+  lines: [number, number];
+  lineEnd: LineEnd;
+  errors: string[];
+}
+
+/**
+ * Splits the text into records with papaparse, keeping for each its physical lines, how it ended and
+ * the parser's own errors. Line breaks are LF or CRLF (a file with CR alone is read with CR); a CR
+ * before LF is not part of the last cell. Quoted cells keep their line breaks exactly.
+ */
+function splitRecords(text: string): { records: RawRecord[]; empty: number[]; total: number } {
+  const newline = text.includes('\n') ? '\n' : text.includes('\r') ? '\r' : '\n';
+  const records: RawRecord[] = [];
+  const empty: number[] = [];
+  let start = 0;
+  let line = 1;
+  Papa.parse<string[]>(text, {
+    newline,
+    step: (r) => {
+      const end = r.meta.cursor;
+      if (end <= start && start >= text.length) return;
+      const chunk = text.slice(start, end);
+      let breaks = 0;
+      for (let i = chunk.indexOf(newline); i >= 0; i = chunk.indexOf(newline, i + 1)) breaks++;
+      const ended = chunk.endsWith(newline);
+      const lineEnd: LineEnd = !ended ? 'none' : newline === '\r' ? 'CR' : chunk.endsWith('\r\n') ? 'CRLF' : 'LF';
+      const last = line + breaks - (ended ? 1 : 0);
+      const cells = r.data;
+      if (lineEnd === 'CRLF' && cells.length && cells[cells.length - 1].endsWith('\r')) cells[cells.length - 1] = cells[cells.length - 1].slice(0, -1);
+      if (cells.every((c) => c.trim() === '') && breaks <= 1) empty.push(line);
+      else {
+        const errors = r.errors
+          .filter((e) => e.code !== 'UndetectableDelimiter')
+          .map((e) => (e.code === 'MissingQuotes' ? `a quoted cell opened here is never closed, so ${lineRange(line, last)} were read as one row` : `CSV: ${e.message}`));
+        records.push({ cells, lines: [line, last], lineEnd, errors });
+      }
+      line = last + 1;
+      start = end;
+    },
+  });
+  return { records, empty, total: line - 1 };
+}
+
 export function parseSample(text: string, knownImfs: (name: string) => boolean): ParsedSample {
   const clean = text.replace(/^\uFEFF/, '');
-  const res = Papa.parse<string[]>(clean, { skipEmptyLines: 'greedy' });
-  const data = res.data as string[][];
+  const { records, empty, total } = splitRecords(clean);
   const fileErrors: string[] = [];
-  if (!data.length) return { columns: [], extraColumns: [], rows: [], fileErrors: ['the sample is empty (no header row)'] };
-  const header = data[0].map((h) => h.trim());
-  const dup = header.find((h, i) => h !== '' && header.indexOf(h) !== i);
-  if (dup) fileErrors.push(`column "${dup}" appears twice in the header`);
-  for (const need of ['id', 'z']) if (!header.includes(need)) fileErrors.push(`the header has no "${need}" column (required)`);
-  const extra = header.filter((h) => h !== '' && !(KNOWN_COLUMNS as readonly string[]).includes(h));
+  const fileWarnings: string[] = [];
+  if (!records.length) {
+    const fatal = 'the sample is empty (no header row)';
+    return { columns: [], extraColumns: [], rows: [], fileErrors: [fatal], fileWarnings, lines: { total, header: [0, 0], empty }, fatal };
+  }
+  const head = records[0];
+  const known = KNOWN_COLUMNS as readonly string[];
+  const header = head.cells.map((h, i) => {
+    const t = h.trim();
+    if (t === '') return `(column ${i + 1})`;
+    return known.includes(t.toLowerCase()) ? t.toLowerCase() : t;
+  });
+  const seenCol = new Map<string, number>();
+  const dupProblems: string[] = [];
+  header.forEach((h, i) => {
+    const k = h.toLowerCase();
+    if (seenCol.has(k)) dupProblems.push(`the header names "${h}" twice (columns ${seenCol.get(k)! + 1} and ${i + 1}): which one holds the values is unclear; rename or remove one`);
+    else seenCol.set(k, i);
+  });
+  fileErrors.push(...dupProblems);
+  for (const e of head.errors) fileErrors.push(`header (${lineRange(...head.lines)}): ${e}`);
+  const missing = ['id', 'z'].filter((c) => !header.includes(c));
+  let fatal: string | undefined;
+  if (missing.length) {
+    fatal = `the first line must be a header naming the columns, with at least "id" and "z"; line ${head.lines[0]} has no ${missing.map((m) => `"${m}"`).join(' or ')} column (it reads: ${head.cells.slice(0, 6).join(',').slice(0, 80)})`;
+    fileErrors.push(fatal);
+  }
+  const extra = header.filter((h) => !known.includes(h) && !/^\(column \d+\)$/.test(h));
+  for (const h of extra) {
+    const s = suggestColumn(h);
+    if (s && !header.includes(s)) fileWarnings.push(`column "${h}" is not one of ours and is only echoed; did you mean "${s}"?`);
+  }
+  const ends = new Map<LineEnd, number[]>();
+  for (const r of records) {
+    if (r.lineEnd === 'none') continue;
+    const l = ends.get(r.lineEnd);
+    if (l) l.push(r.lines[1]);
+    else ends.set(r.lineEnd, [r.lines[1]]);
+  }
+  if (ends.size > 1) fileWarnings.push(`line ends are mixed (${[...ends].map(([k, v]) => `${k} on ${v.length === 1 ? 'line' : 'lines'} ${listLines(v)}`).join('; ')}); every line was read`);
+  if (empty.length) fileWarnings.push(`${empty.length === 1 ? 'line' : 'lines'} ${listLines(empty)} ${empty.length === 1 ? 'is' : 'are'} empty and ${empty.length === 1 ? 'was' : 'were'} skipped`);
   const rows: SampleRow[] = [];
   const seenIds = new Map<string, number>();
-  for (let r = 1; r < data.length; r++) {
-    const cells = data[r];
-    const raw: Record<string, string> = {};
-    header.forEach((h, i) => {
-      if (h !== '') raw[h] = cells[i] ?? '';
-    });
+  for (let r = 1; r < records.length; r++) {
+    const rec = records[r];
+    const cells = rec.cells;
+    const raw = Object.create(null) as Record<string, string>;
+    const width = Math.max(cells.length, header.length);
+    for (let i = 0; i < width; i++) raw[i < header.length ? header[i] : `(column ${i + 1})`] = cells[i] ?? '';
     const errors: RowProblem[] = [];
     const bad = (column: string, reason: string): void => void errors.push({ row: r, column, reason });
-    if (cells.length !== header.length) bad('(row)', `has ${cells.length} cells but the header has ${header.length}`);
+    for (const e of rec.errors) bad('(row)', `${lineRange(...rec.lines)}: ${e}`);
+    for (const d of dupProblems) bad('(header)', d);
+    for (const m of missing) bad(m, 'the header has no such column (required)');
+    if (cells.length !== header.length) bad('(row)', `${lineRange(...rec.lines)} has ${cells.length} cells but the header has ${header.length}`);
     const num: Partial<Record<NumericColumn, number>> = {};
     for (const c of NUMERIC) {
       if (raw[c] === undefined) continue;
@@ -145,7 +280,7 @@ export function parseSample(text: string, knownImfs: (name: string) => boolean):
     if (num.log_mstar_alt !== undefined && num.z_alt === undefined) bad('log_mstar_alt', 'is given without z_alt');
     if (num.log_mstar_alt !== undefined && num.log_mstar === undefined) bad('log_mstar_alt', 'needs log_mstar');
     if (errors.length) {
-      rows.push({ row: r, raw, status: 'rejected', errors });
+      rows.push({ row: r, lines: rec.lines, lineEnd: rec.lineEnd, raw, status: 'rejected', errors });
       continue;
     }
     const galaxy: GalaxyInput = {
@@ -169,7 +304,7 @@ export function parseSample(text: string, knownImfs: (name: string) => boolean):
       survey: (raw.survey ?? '').trim() || undefined,
       notes: raw.notes,
     };
-    rows.push({ row: r, raw, status: 'ok', galaxy, errors: [] });
+    rows.push({ row: r, lines: rec.lines, lineEnd: rec.lineEnd, raw, status: 'ok', galaxy, errors: [] });
   }
-  return { columns: header, extraColumns: extra, rows, fileErrors };
+  return { columns: header, extraColumns: extra, rows, fileErrors, fileWarnings, lines: { total, header: head.lines, empty }, ...(fatal ? { fatal } : {}) };
 }
