@@ -1,11 +1,14 @@
 import { PRESETS } from '../cosmology/presets.js';
 import type { AuditChoices } from './choices.js';
-import { citeInText, referencesFor } from './citations.js';
+import { CITATIONS, citeInText, referencesFor } from './citations.js';
 import { csvLine, escapeMarkdown as md } from './output-safety.js';
 import type { AuditResult, GalaxyRow } from './run-audit.js';
 import type { BinBudget } from './sample-budget.js';
 import type { Reconciliation } from './reconcile.js';
 import { verdictFor } from './verdict.js';
+
+/** How the report names a method: our citation table's text as it is; anything user-given (a custom IMF) escaped. */
+const citeSafe = (name: string): string => (CITATIONS[name] ? CITATIONS[name].inText : md(citeInText(name)));
 
 const fmtE = (x: number): string => (x >= 999 ? '> 999' : x >= 10 ? x.toFixed(0) : x >= 0.1 ? x.toFixed(2) : x.toExponential(1));
 
@@ -88,7 +91,7 @@ export function attributionSentence(g: GalaxyRow): string {
   if (d.length === 1 && d[0].cause === 'holds under every IMF') return ' No compared IMF lowers its verdict, nor does any other check.';
   const clauses: string[] = [];
   const imf = d.filter((x) => x.cause === 'IMF-driven');
-  if (imf.length) clauses.push(`another IMF (${imf.map((x) => `${md(citeInText(x.via))}: ${x.verdict_after}`).join('; ')})`);
+  if (imf.length) clauses.push(`another IMF (${imf.map((x) => `${citeSafe(x.via)}: ${x.verdict_after}`).join('; ')})`);
   for (const x of d.filter((y) => y.cause === 'redshift-driven')) clauses.push(`the other redshift (${x.via}: ${x.verdict_after})`);
   for (const x of d.filter((y) => y.cause === 'volume-driven')) clauses.push(`cosmic variance (${x.verdict_after})`);
   for (const x of d.filter((y) => y.cause === 'Eddington-driven')) clauses.push(`the Eddington correction, ${x.via} (${x.verdict_after})`);
@@ -136,11 +139,11 @@ function galaxyParagraph(g: GalaxyRow, r: AuditResult): string {
   const h = g.imf![g.headline_imf!];
   const others = Object.entries(g.imf!)
     .filter(([k]) => k !== g.headline_imf)
-    .map(([k, v]) => `${md(citeInText(k))} ε ≈ ${fmtE(v.eps_required_median)} (${v.verdict})`)
+    .map(([k, v]) => `${citeSafe(k)} ε ≈ ${fmtE(v.eps_required_median)} (${v.verdict})`)
     .join(', ');
   const rz = g.redshift_checks!.map((x) => `at ${x.kind} = ${x.z} it needs ε ≈ ${fmtE(x.eps_required_median)} (${x.verdict})`).join('; ');
   return (
-    `**${md(g.id)}** (z = ${md(g.input.z)}) is **${g.verdict}** under ${md(citeInText(g.headline_imf!))}, the headline IMF. Its log M* = ${h.log_mstar_median.toFixed(2)} ` +
+    `**${md(g.id)}** (z = ${md(g.input.z)}) is **${g.verdict}** under ${citeSafe(g.headline_imf!)}, the headline IMF. Its log M* = ${h.log_mstar_median.toFixed(2)} ` +
     `(16–84%: ${h.log_mstar_p16.toFixed(2)}–${h.log_mstar_p84.toFixed(2)}) needs a star-formation efficiency ε ≈ ${fmtE(h.eps_required_median)} ` +
     `(5th percentile ${fmtE(h.eps_required_p05)}) of the baryons in the most massive halo expected at the ${(c.quantile * 100).toFixed(1)}% level ` +
     `in its slice ${g.ceiling!.slice_z_min.toFixed(2)} < z < ${g.ceiling!.slice_z_max.toFixed(2)} (M_halo = ${g.ceiling!.halo_mass_at_quantile_msun.toExponential(2)} Msun); ` +
@@ -189,7 +192,7 @@ export function auditMarkdown(r: AuditResult): string {
       `Ωb = ${c.cosmology.omegaB.toFixed(5)} (f_b = ${(c.cosmology.omegaB / c.cosmology.omegaM).toFixed(4)}), σ8 = ${c.cosmology.sigma8}; ` +
       `survey ${md(c.survey.name)}: ${c.survey.areaArcmin2} arcmin², ${c.survey.zMin} < z < ${c.survey.zMax}; redshift slices of Δz = ${c.sliceDz}; ` +
       `rarest-halo quantile ${c.quantile} (extreme-value statistics, ${citeInText('evs')}); ε_ref = ${c.epsRef}; SFH ${md(c.sfh)}; ` +
-      `IMFs ${c.imfs.map((i) => md(citeInText(i))).join(', ')}; ${c.draws} Monte Carlo draws, seed ${c.seed}.`,
+      `IMFs ${c.imfs.map((i) => citeSafe(i)).join(', ')}; ${c.draws} Monte Carlo draws, seed ${c.seed}.`,
     '',
   );
   const fe = r.sample.file_errors;
