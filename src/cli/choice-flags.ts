@@ -24,7 +24,7 @@ export function flagOfField(field: string): string | undefined {
   const s = CHOICE_SPECS.find((x) => x.key === top);
   if (s) return s.flag;
   if (field.startsWith('survey.')) return SURVEY_SPECS.find((x) => x.key === field.slice(7))?.flag;
-  const other: Record<string, string> = { imfs: '--imf', headlineImf: '--headline-imf', sfh: '--sfh', massFunction: '--model', transfer: '--transfer', deltaC: '--delta-c', zBins: '--z-bins', surveys: '--surveys', cosmology: '--preset' };
+  const other: Record<string, string> = { imfs: '--imf', headlineImf: '--headline-imf', sfh: '--sfh', massFunction: '--model', transfer: '--transfer', deltaC: '--delta-c', zBins: '--z-bins', surveys: '--surveys', cosmology: '--preset', growth: '--growth', cosmologyCovariance: '--cosmo-cov' };
   return other[top];
 }
 

@@ -1,3 +1,4 @@
+import { DEFAULT_GROWTH_MODEL, GROWTH_MODELS, type GrowthModel } from '../core/cosmology/index.js';
 import { MASS_FUNCTION_NAMES } from '../core/halos/index.js';
 import type { DeltaCSpec } from '../core/halos/index.js';
 import { parsePowerTable, TRANSFER_NAMES, type TransferSpec } from '../core/power/index.js';
@@ -11,6 +12,7 @@ export const HALO_OPTIONS: OptionSpec = {
   transfer: { type: 'string' },
   'pk-file': { type: 'string' },
   'delta-c': { type: 'string' },
+  growth: { type: 'string' },
   ...INPUT_OPTIONS,
 };
 
@@ -19,9 +21,11 @@ export const HALO_HELP = `Halo abundance:
   --transfer NAME     ${TRANSFER_NAMES.join(', ')}, or table (needs --pk-file) (default eh98)
   --pk-file FILE      tabulated P(k) at z = 0: two columns, k [1/Mpc] and P [Mpc^3]
   --delta-c X|omega-m collapse threshold in [1, 2.5] (default 1.686; omega-m = 1.686[1+0.0123 log10 Ωm(z)])
+  --growth NAME       linear growth: ${GROWTH_MODELS.join(' (default, radiation left out, the usual convention) or ')} (photons and
+                      massless neutrinos in H(z))
 ${INPUT_HELP}`;
 
-export function haloChoices(values: Parsed['values']): { massFunction: string; transfer: TransferSpec; deltaC: DeltaCSpec } {
+export function haloChoices(values: Parsed['values']): { massFunction: string; transfer: TransferSpec; deltaC: DeltaCSpec; growth?: GrowthModel } {
   const massFunction = choice('model', values.model, MASS_FUNCTION_NAMES, 'sheth-tormen');
   const tName = choice('transfer', values.transfer, [...TRANSFER_NAMES, 'table'] as const, values['pk-file'] ? 'table' : 'eh98');
   let transfer: TransferSpec;
@@ -39,5 +43,6 @@ export function haloChoices(values: Parsed['values']): { massFunction: string; t
   }
   const dcRaw = values['delta-c'];
   const deltaC: DeltaCSpec = dcRaw === 'omega-m' ? { kind: 'omega-m' } : { kind: 'constant', value: dcRaw === undefined ? 1.686 : num('delta-c', dcRaw, { min: DELTA_C_SPEC.min, max: DELTA_C_SPEC.max }) };
-  return { massFunction, transfer, deltaC };
+  const growth = values.growth === undefined ? undefined : choice('growth', values.growth, GROWTH_MODELS, DEFAULT_GROWTH_MODEL);
+  return { massFunction, transfer, deltaC, ...(growth !== undefined ? { growth } : {}) };
 }

@@ -162,4 +162,23 @@ describe('CLI errors: exit 2, one line naming the flag, no stack trace, no NaN',
     expect(r.code).toBe(2);
     expect(r.err).toMatch(/record\.choices\.sfh/);
   });
+  it('--growth and --cosmo-cov reach the audit and its record, and the record reproduces them exactly', async () => {
+    const cov = join(tmp, 'cov.csv');
+    // σ8 ± 0.01 alone (variance 1e-4); the others held fixed
+    writeFileSync(cov, 'param,omega_b_h2,omega_c_h2,h0,n_s,sigma8\nomega_b_h2,0,0,0,0,0\nomega_c_h2,0,0,0,0,0\nh0,0,0,0,0,0\nn_s,0,0,0,0,0\nsigma8,0,0,0,0,1e-4\n');
+    const a = await run(['assess', '--demo', '--draws', '200', '--growth', 'with-radiation', '--cosmo-cov', cov, '--format', 'json']);
+    expect(a.code, a.err).toBe(0);
+    const j = JSON.parse(a.out);
+    expect(j.record.choices.growth).toBe('with-radiation');
+    expect(j.record.choices.cosmologyCovariance.matrix[4][4]).toBe(1e-4);
+    for (const g of j.galaxies) if (g.status === 'ok') expect(g.ceiling.log_mass_cosmo_sd_dex).toBeGreaterThan(0);
+    const f = join(tmp, 'growth-record.json');
+    writeFileSync(f, a.out);
+    const b = await run(['assess', '--record', f, '--format', 'json']);
+    expect(b.code, b.err).toBe(0);
+    expect(JSON.parse(b.out).galaxies).toEqual(j.galaxies);
+    const bad = await run(['assess', '--demo', '--growth', 'sideways']);
+    expect(bad.code).toBe(2);
+    expect(bad.err).toMatch(/--growth/);
+  }, 120000);
 });

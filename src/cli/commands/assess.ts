@@ -17,6 +17,7 @@ import { DEMO_SAMPLE_CSV, DEMO_SURVEY } from '../../demo/demo-sample.js';
 import { COSMOLOGY_HELP, COSMOLOGY_OPTIONS, cosmologyFrom, format, num, parse } from '../args.js';
 import { CliError } from '../cli-error.js';
 import { CHOICE_HELP, CHOICE_OPTIONS, flagOfField, numericChoices, specFlag } from '../choice-flags.js';
+import { parseCovarianceCsv, type ParamCovariance } from '../../core/cosmology/index.js';
 import { HALO_HELP, HALO_OPTIONS, haloChoices } from '../halo-options.js';
 import { defaultJobs, maxJobs } from '../parallel-audit.js';
 import { INPUT_OPTIONS, inputLimitBytes, readInput } from '../read-input.js';
@@ -39,6 +40,8 @@ Survey and choices:
   --surveys FILE       CSV of named surveys (name,area_arcmin2,z_min,z_max) for the sample's survey column
   --headline-imf NAME  the IMF of the headline verdict for rows without imf_ref (default: the first
                        --imf; always compared)
+  --cosmo-cov FILE     covariance of ω_b, ω_c, H0, n_s, σ8 for the ceiling's spread (CSV, header
+                       param,omega_b_h2,omega_c_h2,h0,n_s,sigma8; default: the preset's 1σ errors)
 ${CHOICE_HELP}
   --z-bins A:B,C:D     redshift bins for the sample densities (default: the survey range)
   --jobs N             worker threads for large samples (default: cores, for ≥ 24 rows; capped at the
@@ -79,6 +82,7 @@ export async function runAssess(argv: string[], out: (s: string) => void = () =>
       'survey-name': { type: 'string' },
       surveys: { type: 'string' },
       'headline-imf': { type: 'string' },
+      'cosmo-cov': { type: 'string' },
       ...CHOICE_OPTIONS,
       'z-bins': { type: 'string' },
       jobs: { type: 'string' },
@@ -130,6 +134,15 @@ export async function runAssess(argv: string[], out: (s: string) => void = () =>
       surveys = parsed.surveys;
     }
     const halo = haloChoices(values);
+    let cosmologyCovariance: ParamCovariance | undefined;
+    if (typeof values['cosmo-cov'] === 'string') {
+      try {
+        cosmologyCovariance = parseCovarianceCsv(readInput(values['cosmo-cov'], '--cosmo-cov', limit), values['cosmo-cov']);
+      } catch (e) {
+        if (e instanceof CliError) throw e;
+        throw new CliError(`--cosmo-cov ${values['cosmo-cov']}: ${(e as Error).message}`);
+      }
+    }
     sfhFrom(values);
     const imfs = imfList(values, DEFAULT_IMFS);
     let headlineImf: string | undefined;
@@ -143,6 +156,8 @@ export async function runAssess(argv: string[], out: (s: string) => void = () =>
       massFunction: halo.massFunction,
       transfer: halo.transfer,
       deltaC: halo.deltaC,
+      ...(halo.growth !== undefined ? { growth: halo.growth } : {}),
+      ...(cosmologyCovariance !== undefined ? { cosmologyCovariance } : {}),
       imfs,
       ...(headlineImf !== undefined ? { headlineImf } : {}),
       sfh: typeof values.sfh === 'string' ? values.sfh : 'constant',
