@@ -119,6 +119,22 @@ function ceilingOffsets(seed: number, id: string, n: number, sdDex: number): Flo
   return out;
 }
 
+/**
+ * The galaxy's draws placed at one redshift z (the same band and flux, or the reported mass scaled by
+ * D_L²(1+z)), as IMF-free bases and grid positions in the M/L tables; undefined when the band leaves
+ * the model's rest range there. The galaxy's own random stream, so the figure and the reconciliation
+ * agree.
+ */
+export function fixedRedshiftCells(ctx: AuditContext, g: GalaxyInput, z: number, n: number): { base: Float64Array; gx: Float64Array; gy: Float64Array } | undefined {
+  const { headline } = headlineAndCompared(g, ctx.choices);
+  const tableOf = (imf: string): MassToLightTable => ctx.cache.table(imf, g.z, ctx.sfh);
+  const df = drawGalaxy(g, n, idSeed(ctx.choices.seed, g.id), ctx.halo.background, { z, alt: false });
+  const ok = validDraws(g, df);
+  if (!ok.length) return undefined;
+  const cell = drawGrid(g, df, ok, tableOf(headline), g.imfRef ? tableOf(g.imfRef) : undefined);
+  return { base: cell.base, gx: cell.x, gy: cell.y };
+}
+
 /** Indices of the draws whose band fell inside the model's rest range (all, for a reported mass). */
 function validDraws(g: GalaxyInput, d: GalaxyDraws): number[] {
   const valid: number[] = [];
@@ -267,13 +283,7 @@ export function auditGalaxy(ctx: AuditContext, g: GalaxyInput, index: number): G
             gy,
             headTable: tableOf(headline),
             tableOf,
-            drawsAtRedshift: (zf) => {
-              const df = drawGalaxy(g, Math.min(n, 2000), seed, halo.background, { z: zf, alt: false });
-              const ok = validDraws(g, df);
-              if (!ok.length) return undefined;
-              const cell = drawGrid(g, df, ok, tableOf(headline), refTable);
-              return { base: cell.base, gx: cell.x, gy: cell.y };
-            },
+            drawsAtRedshift: (zf) => fixedRedshiftCells(ctx, g, zf, Math.min(n, 2000)),
           },
           [...new Set([1, choices.epsRef])],
         );
