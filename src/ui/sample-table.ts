@@ -2,12 +2,16 @@ import Papa from 'papaparse';
 
 /** The sample as an editable grid: header + rows of cell text, to and from CSV (papaparse). */
 export interface SampleGrid {
-  readonly header: string[];
-  readonly rows: string[][];
+  readonly header: readonly string[];
+  readonly rows: readonly (readonly string[])[];
 }
 
+/** Rows whose cells are all blank: kept in the table, skipped by the audit (as its CSV reader does). */
+export const isBlankRow = (r: readonly string[]): boolean => r.every((c) => c.trim() === '');
+
+/** Reads the sample text; blank rows are kept (so a row just added survives a round trip). */
 export function gridFromCsv(csv: string): SampleGrid {
-  const res = Papa.parse<string[]>(csv.replace(/^\uFEFF/, ''), { skipEmptyLines: 'greedy' });
+  const res = Papa.parse<string[]>(csv.replace(/^\uFEFF/, ''), { skipEmptyLines: true });
   const data = res.data as string[][];
   if (!data.length) return { header: ['id', 'z', 'muv'], rows: [] };
   const header = data[0].map((h) => h.trim());
@@ -15,14 +19,16 @@ export function gridFromCsv(csv: string): SampleGrid {
 }
 
 export function csvFromGrid(g: SampleGrid): string {
-  return Papa.unparse([g.header, ...g.rows], { newline: '\n' }) + '\n';
+  return Papa.unparse([g.header as string[], ...(g.rows as string[][])], { newline: '\n' }) + '\n';
 }
 
-/** Text pasted from a spreadsheet (tab-separated) or as CSV, with a header row. */
-export function gridFromPaste(text: string): SampleGrid {
-  const delimiter = text.includes('\t') ? '\t' : ',';
-  const res = Papa.parse<string[]>(text.trim(), { delimiter, skipEmptyLines: 'greedy' });
-  const data = res.data as string[][];
-  const header = (data[0] ?? []).map((h) => h.trim());
-  return { header, rows: data.slice(1).map((r) => header.map((_, i) => r[i] ?? '')) };
+/**
+ * For each table row (0-based), the audit's 1-based row number, or 0 for a blank row the audit skips.
+ * The audit numbers rows after dropping blank ones.
+ */
+export function auditRowNumbers(g: SampleGrid): Int32Array {
+  const out = new Int32Array(g.rows.length);
+  let n = 0;
+  g.rows.forEach((r, i) => (out[i] = isBlankRow(r) ? 0 : ++n));
+  return out;
 }

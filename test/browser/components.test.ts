@@ -70,7 +70,7 @@ describe('<sample-editor> paste and drop', () => {
     const ta = el.shadowRoot!.querySelector('textarea') as HTMLTextAreaElement;
     ta.value = 'id\tz\tmuv\nP-1\t9.5\t-21\nP-2\t8.1\t-20';
     const got = new Promise<string>((ok) => el.addEventListener('sample-change', (e) => ok((e as CustomEvent).detail.csv), { once: true }));
-    (Array.from(el.shadowRoot!.querySelectorAll('button')).find((b) => b.textContent === 'Use pasted rows') as HTMLButtonElement).click();
+    (Array.from(el.shadowRoot!.querySelectorAll('button')).find((b) => b.textContent === 'Add pasted rows') as HTMLButtonElement).click();
     const csv = await got;
     expect(csv).to.contain('P-1,9.5,-21');
     expect(csv).to.contain('P-2,8.1,-20');
