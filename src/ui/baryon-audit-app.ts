@@ -87,7 +87,8 @@ export class BaryonAuditApp extends LitElement {
     .exports { display: flex; flex-wrap: wrap; gap: 0.5rem; }
     button, label.button { font: inherit; padding: 0.25rem 0.6rem; border: 1px solid #777; border-radius: 4px; background: #fafafa; cursor: pointer; }
     label.button:focus-within { outline: 2px solid #0072B2; }
-    .visually-hidden { position: absolute; width: 1px; height: 1px; overflow: hidden; clip: rect(0 0 0 0); }
+    .visually-hidden { position: absolute; width: 1px; height: 1px; overflow: hidden; clip-path: inset(50%); white-space: nowrap; }
+    section { position: relative; }
     pre.summary { white-space: pre-wrap; overflow-wrap: anywhere; font-size: 0.85rem; background: #f7f7f7; padding: 0.6rem; border: 1px solid #ddd; }
     progress { width: min(12rem, 40vw); }
     section { min-width: 0; }
@@ -97,8 +98,8 @@ export class BaryonAuditApp extends LitElement {
     button:disabled { cursor: default; color: #888; border-color: #ccc; }
     button:focus-visible { outline: 2px solid #0072B2; outline-offset: 1px; }
     label.button { position: relative; }
-    .skip { position: absolute; left: -10000px; top: auto; }
-    .skip:focus { position: static; display: inline-block; margin: 0.2rem 0; padding: 0.2rem 0.5rem; background: #0072B2; color: #fff; }
+    .skip:not(:focus) { position: absolute; width: 1px; height: 1px; overflow: hidden; clip-path: inset(50%); white-space: nowrap; }
+    .skip:focus { display: inline-block; margin: 0.2rem 0; padding: 0.2rem 0.5rem; background: #0072B2; color: #fff; }
     h2:focus { outline: 2px solid #0072B2; }
     .out { position: relative; }
     .out > .body { transition: opacity 0.2s ease 0.4s; }
@@ -249,7 +250,7 @@ export class BaryonAuditApp extends LitElement {
     try {
       const r = await this.controller.explore({ cosmology: this.choices.cosmology, transfer: this.choices.transfer, z });
       const c = this.choices.cosmology;
-      this.explorer = explorerFigure(r.log10M, r.series, z, `H0 = ${c.h0}, Ωm = ${c.omegaM}, σ8 = ${c.sigma8}, ${this.choices.transfer.kind}`);
+      this.explorer = explorerFigure(r.log10M, r.series, z, `H0 = ${c.h0}, Ωm = ${c.omegaM}, σ8 = ${c.sigma8}`, this.choices.transfer.kind);
     } catch (e) {
       this.notice = `halo-abundance explorer: ${(e as Error).message}`;
     }
@@ -405,7 +406,7 @@ export class BaryonAuditApp extends LitElement {
               <results-table .result=${result} .selected=${this.selected} @galaxy-select=${(e: CustomEvent<{ id: string }>) => (this.selected = e.detail.id)}></results-table>
               <h2>Figures</h2>
               <div class="figs" @download=${(e: CustomEvent<{ name: string; blob: Blob }>) => download(e.detail.name, e.detail.blob)}>
-                ${figs.map((m) => html`<audit-chart .model=${m}></audit-chart>`)}
+                ${figs.map((m) => html`<audit-chart .model=${m} .highlight=${this.selected}></audit-chart>`)}
                 <div>
                   <label class="explorer-z">explorer redshift <input type="number" min="0" max="30" step="0.5" .value=${String(this.explorerZ)} @change=${(e: Event) => {
                     const v = Number((e.target as HTMLInputElement).value);
