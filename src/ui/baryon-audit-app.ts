@@ -87,8 +87,7 @@ export class BaryonAuditApp extends LitElement {
     .exports { display: flex; flex-wrap: wrap; gap: 0.5rem; }
     button, label.button { font: inherit; padding: 0.25rem 0.6rem; border: 1px solid #777; border-radius: 4px; background: #fafafa; cursor: pointer; }
     label.button:focus-within { outline: 2px solid #0072B2; }
-    .visually-hidden { position: absolute; width: 1px; height: 1px; overflow: hidden; clip-path: inset(50%); white-space: nowrap; }
-    section { position: relative; }
+    .visually-hidden { position: absolute; width: 1px; height: 1px; overflow: hidden; clip: rect(0 0 0 0); }
     pre.summary { white-space: pre-wrap; overflow-wrap: anywhere; font-size: 0.85rem; background: #f7f7f7; padding: 0.6rem; border: 1px solid #ddd; }
     progress { width: min(12rem, 40vw); }
     section { min-width: 0; }
@@ -98,8 +97,8 @@ export class BaryonAuditApp extends LitElement {
     button:disabled { cursor: default; color: #888; border-color: #ccc; }
     button:focus-visible { outline: 2px solid #0072B2; outline-offset: 1px; }
     label.button { position: relative; }
-    .skip:not(:focus) { position: absolute; width: 1px; height: 1px; overflow: hidden; clip-path: inset(50%); white-space: nowrap; }
-    .skip:focus { display: inline-block; margin: 0.2rem 0; padding: 0.2rem 0.5rem; background: #0072B2; color: #fff; }
+    .skip { position: absolute; left: -10000px; top: auto; }
+    .skip:focus { position: static; display: inline-block; margin: 0.2rem 0; padding: 0.2rem 0.5rem; background: #0072B2; color: #fff; }
     h2:focus { outline: 2px solid #0072B2; }
     .out { position: relative; }
     .out > .body { transition: opacity 0.2s ease 0.4s; }
