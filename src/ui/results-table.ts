@@ -82,8 +82,9 @@ export class ResultsTable extends LitElement {
     th { position: sticky; top: 0; z-index: 1; background: #f3f3f3; border-bottom: 1px solid #bbb; padding: 0.15rem 0.3rem; font-weight: 600; text-align: left; vertical-align: bottom; }
     th button.sort { font: inherit; border: 0; background: none; padding: 0; cursor: pointer; display: inline-flex; align-items: center; gap: 0.2rem; text-align: left; }
     th button.sort:focus-visible { outline: 2px solid #0072B2; }
-    th .name { max-width: 5.2rem; overflow: hidden; text-overflow: ellipsis; white-space: nowrap; display: inline-block; }
-    td { padding: 0 0.35rem; border-bottom: 1px solid #e6e6e6; white-space: nowrap; }
+    th.imf button.sort { flex-direction: column; align-items: flex-end; text-align: right; }
+    th .name { max-width: 4.4rem; overflow-wrap: anywhere; white-space: normal; display: inline-block; line-height: 1.1; }
+    td { padding: 0 0.25rem; border-bottom: 1px solid #e6e6e6; white-space: nowrap; }
     .c { height: ${ROW_H - 1}px; display: flex; align-items: center; gap: 0.25rem; overflow: hidden; }
     td.num .c, td.imf .c { justify-content: flex-end; font-variant-numeric: tabular-nums; }
     td.imf.head { background: #f4f8fb; font-weight: 600; }
@@ -94,7 +95,7 @@ export class ResultsTable extends LitElement {
     tr.active td { box-shadow: inset 0 1px 0 #0072B2, inset 0 -1px 0 #0072B2; }
     tr.rejected td { color: #555; }
     td.why .c { max-width: 30rem; text-overflow: ellipsis; }
-    .verdict { font-weight: 600; padding: 0 0.3rem; border-radius: 3px; color: #fff; line-height: 1.3; }
+    .verdict { font-weight: 600; padding: 0 0.25rem; border-radius: 3px; color: #fff; line-height: 1.3; }
     .verdict.within { background: ${unsafeCSS(VERDICT_COLORS['within budget'])}; color: #000; }
     .verdict.strained { background: ${unsafeCSS(VERDICT_COLORS.strained)}; color: #000; }
     .verdict.over { background: ${unsafeCSS(VERDICT_COLORS['over budget'])}; }
