@@ -9,13 +9,11 @@ import { IMF_CITATIONS, MASS_FUNCTION_CITATIONS, TRANSFER_CITATIONS, citeCosmolo
 const plain = (cite: string): string => cite.replace(/ \((\d{4})\)$/, ' $1');
 
 describe('citations', () => {
-  it('cite every mass function of the core with the authors and year of its own source, and its journal, volume and page', () => {
+  it('cite every mass function of the core with the authors and year of its own source', () => {
     for (const [name, m] of Object.entries(MASS_FUNCTIONS)) {
       const c = MASS_FUNCTION_CITATIONS[name];
       expect(c, name).toBeDefined();
-      expect(m.source.startsWith(plain(c.cite)), `${name}: ${m.source} vs ${c.cite}`).toBe(true);
-      const [, journal, vol, page] = /, (\w+) (\d+), (\d+)/.exec(m.source)!;
-      expect(c.ref).toContain(`${journal}, ${vol}, ${page}`);
+      expect(m.source.startsWith(plain(c)), `${name}: ${m.source} vs ${c}`).toBe(true);
     }
     expect(citeMassFunction('sheth-tormen')).toBe('Sheth & Tormen (1999)');
   });
@@ -27,14 +25,15 @@ describe('citations', () => {
     expect(citeTransfer('table')).toBe('a tabulated P(k)');
   });
 
-  it('cite every IMF preset with a reference its core source names, and describe a custom IMF by its segments', () => {
+  it('cite every IMF preset with authors and years its core source names, and describe a custom IMF by its segments', () => {
     for (const p of IMF_PRESETS) {
       const c = IMF_CITATIONS[p.name];
       expect(c, p.name).toBeDefined();
-      const year = /(\d{4})/.exec(c.ref)![1];
-      const author = c.ref.split(/[ ,]/)[0];
-      expect(p.source, p.name).toContain(author);
-      expect(p.source, p.name).toContain(year);
+      for (const [, author, year] of c.matchAll(/([A-Z][a-z]+)(?: et al\.| & [A-Z][a-z]+)? \(?(\d{4})/g)) {
+        expect(p.source, p.name).toContain(author);
+        expect(p.source, p.name).toContain(year);
+      }
+      expect(/\d{4}/.test(c), p.name).toBe(true);
     }
     expect(citeImf('custom:0.1:1.3:0.5:2.3:100')).toBe('a custom power-law IMF (dN/dm ∝ m^−α, α = 1.3 over 0.1–0.5; α = 2.3 over 0.5–100 Msun)');
   });
