@@ -87,7 +87,8 @@ export class BaryonAuditApp extends LitElement {
     .exports { display: flex; flex-wrap: wrap; gap: 0.5rem; }
     button, label.button { font: inherit; padding: 0.25rem 0.6rem; border: 1px solid #777; border-radius: 4px; background: #fafafa; cursor: pointer; }
     label.button:focus-within { outline: 2px solid #0072B2; }
-    .visually-hidden { position: absolute; width: 1px; height: 1px; overflow: hidden; clip: rect(0 0 0 0); }
+    .visually-hidden { position: absolute; width: 1px; height: 1px; overflow: hidden; clip-path: inset(50%); white-space: nowrap; }
+    section { position: relative; }
     pre.summary { white-space: pre-wrap; overflow-wrap: anywhere; font-size: 0.85rem; background: #f7f7f7; padding: 0.6rem; border: 1px solid #ddd; }
     progress { width: min(12rem, 40vw); }
     section { min-width: 0; }
@@ -97,11 +98,12 @@ export class BaryonAuditApp extends LitElement {
     button:disabled { cursor: default; color: #888; border-color: #ccc; }
     button:focus-visible { outline: 2px solid #0072B2; outline-offset: 1px; }
     label.button { position: relative; }
-    .skip { position: absolute; left: -10000px; top: auto; }
-    .skip:focus { position: static; display: inline-block; margin: 0.2rem 0; padding: 0.2rem 0.5rem; background: #0072B2; color: #fff; }
+    .skip:not(:focus) { position: absolute; width: 1px; height: 1px; overflow: hidden; clip-path: inset(50%); white-space: nowrap; }
+    .skip:focus { display: inline-block; margin: 0.2rem 0; padding: 0.2rem 0.5rem; background: #0072B2; color: #fff; }
     h2:focus { outline: 2px solid #0072B2; }
     .out { position: relative; }
-    .out > .body { transition: opacity 0.2s ease 0.4s; }
+    /* The results' containing block clips sideways: nothing inside (hidden labels included) widens the page. */
+    .out > .body { position: relative; overflow-x: clip; transition: opacity 0.2s ease 0.4s; }
     .out.pending > .body { opacity: 0.7; }
     .out.stale > .body { opacity: 0.35; filter: grayscale(0.7); transition: none; }
     .stale-badge { position: sticky; top: 0; z-index: 2; margin: 0.4rem 0; padding: 0.35rem 0.6rem; background: #fde2d6; border: 2px solid #D55E00; font-weight: 600; }

@@ -51,7 +51,7 @@ export class ChoicePanel extends LitElement {
       input.wide { width: min(22rem, 100%); }
       select { font: inherit; max-width: 100%; }
       input[aria-invalid='true'] { outline: 2px solid #D55E00; background: #fde2d6; }
-      .imfs label { flex-direction: row; gap: 0.3rem; align-items: center; }
+      .checks label { flex-direction: row; gap: 0.3rem; align-items: center; }
       .custom { display: flex; flex-wrap: wrap; gap: 0.4rem; align-items: flex-end; }
       .custom label { flex-direction: column; align-items: flex-start; }
       button { font: inherit; padding: 0.2rem 0.6rem; border: 1px solid #777; border-radius: 4px; background: #fafafa; cursor: pointer; }
@@ -222,8 +222,8 @@ export class ChoicePanel extends LitElement {
       </fieldset>
       <fieldset class="imfs">
         <legend>Stellar populations</legend>
-        <div class="fields">
-          ${IMF_PRESETS.map((p) => html`<label data-help=${`${p.label}: ${p.source}`}><input type="checkbox" .checked=${live(c.imfs.includes(p.name))} @change=${(e: Event) => this.toggleImf(p.name, (e.target as HTMLInputElement).checked)} />${p.label}${p.topHeavy ? ' (top-heavy)' : ''}</label>`)}
+        <div class="fields checks">
+          ${IMF_PRESETS.map((p) => html`<label data-help=${`${p.label}: ${p.source}`}><input type="checkbox" .checked=${live(c.imfs.includes(p.name))} @change=${(e: Event) => this.toggleImf(p.name, (e.target as HTMLInputElement).checked)} />${p.label}${p.topHeavy && !/top-heavy/i.test(p.label) ? ' (top-heavy)' : ''}</label>`)}
           ${c.imfs.filter((i) => i.startsWith('custom:')).map((i) => html`<label data-help=${`your own IMF: ${i}`}><input type="checkbox" checked @change=${(e: Event) => this.toggleImf(i, (e.target as HTMLInputElement).checked)} />${i}</label>`)}
         </div>
         ${this.err('imfs')}

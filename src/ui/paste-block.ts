@@ -7,7 +7,7 @@ import type { SampleGrid } from './sample-table.js';
 export type PasteBlock =
   | { readonly kind: 'empty' }
   | { readonly kind: 'error'; readonly message: string }
-  /** No header line, or the table's own header (in any order, any case): rows in the table's columns. */
+  /** No header line, or a header naming only the table's columns (any order, any case): rows in the table's columns. */
   | { readonly kind: 'rows'; readonly rows: string[][]; readonly hadHeader: boolean }
   /** A header line that names other columns: the caller asks whether to replace or append. */
   | { readonly kind: 'other-header'; readonly header: string[]; readonly rows: string[][] };
@@ -36,8 +36,9 @@ export function readPasteBlock(text: string, tableHeader: readonly string[]): Pa
     const long = rows.findIndex((r) => r.length > header.length);
     if (long >= 0) return { kind: 'error', message: `pasted line ${long + 2} has ${rows[long].length} cells but the header names ${header.length} columns` };
     const table = tableHeader.map(norm);
-    const same = header.length === table.length && header.every((h) => table.includes(norm(h))) && new Set(header.map(norm)).size === header.length;
-    if (!same) return { kind: 'other-header', header, rows: rows.map((r) => header.map((_, i) => r[i] ?? '')) };
+    // The table's own columns (all or some, in any order): nothing to add, nothing lost; append.
+    const own = header.every((h) => table.includes(norm(h))) && new Set(header.map(norm)).size === header.length;
+    if (!own) return { kind: 'other-header', header, rows: rows.map((r) => header.map((_, i) => r[i] ?? '')) };
     return { kind: 'rows', rows: rows.map((r) => table.map((t) => r[header.findIndex((h) => norm(h) === t)] ?? '')), hadHeader: true };
   }
   const long = data.findIndex((r) => r.length > tableHeader.length);

@@ -83,7 +83,7 @@ export class SampleEditor extends LitElement {
       .paste label { display: block; }
       textarea { box-sizing: border-box; width: 100%; min-height: 6rem; font-family: monospace; }
       .row-buttons { display: flex; flex-wrap: wrap; gap: 0.4rem; margin-top: 0.3rem; }
-      .said { font-size: 0.8rem; color: #333; margin: 0.2rem 0; }
+      .said { font-size: 0.8rem; color: #333; margin: 0.2rem 0; min-height: 1em; }
     `,
   ];
 
@@ -425,7 +425,6 @@ export class SampleEditor extends LitElement {
           </div>`
         : nothing}
       <p class="said" role="status">${this.said}</p>
-      ${this.help.line()}
       <div
         class="scroll ${this.dragging ? 'drag' : ''} ${this.windowed ? 'windowed' : ''}"
         @scroll=${this.onScroll}
@@ -447,6 +446,7 @@ export class SampleEditor extends LitElement {
           </tbody>
         </table>
       </div>
+      ${this.help.line()}
       ${shown.length
         ? html`<ul class="msgs" aria-label="problems in the sample">
             ${shown.map(({ r, c, p }) => html`<li><button type="button" class="link" @click=${() => this.moveTo(r, c)}>row ${r + 1}, ${p.column}</button>: ${p.reason}</li>`)}

@@ -54,7 +54,10 @@ export class SurveyEditor extends LitElement {
 
   protected willUpdate(changed: PropertyValues<this>): void {
     // A value from outside (undo, import, demo) replaces whatever was being typed: its problems go.
-    if (changed.has('value') && this.value !== this.lastSent && Object.values(this.problems).some(Boolean)) {
+    const v = this.value;
+    const s = this.lastSent;
+    const outside = !!v && (!s || v.survey !== s.survey || v.surveys !== s.surveys || v.zBins !== s.zBins);
+    if (changed.has('value') && outside && Object.values(this.problems).some(Boolean)) {
       this.problems = {};
       this.tell();
     }
@@ -170,7 +173,7 @@ export class SurveyEditor extends LitElement {
     const inv = (k: string) => (this.problems[k] ? 'true' : 'false');
     return html`
       <fieldset>
-        <legend>Survey</legend>
+        <legend>Default survey</legend>
         <div class="fields">
           ${SURVEY_FIELDS.map(
             (f) => html`<label data-help=${`${f.label}: ${f.doc}`}>${f.label}<input

@@ -17,6 +17,11 @@ describe('pasted blocks', () => {
     expect(b).toEqual({ kind: 'rows', rows: [['P-3', '7.7', '-20']], hadHeader: true });
   });
 
+  it('appends under a header naming some of the table columns, filling the others with blanks', () => {
+    const b = readPasteBlock('z\tid\nseven\tP-4', header);
+    expect(b).toEqual({ kind: 'rows', rows: [['P-4', 'seven', '']], hadHeader: true });
+  });
+
   it('reports a header that names other columns, for the caller to ask', () => {
     const b = readPasteBlock('id,z,log_mstar,imf_ref\nM-1,9,10.5,salpeter', header);
     expect(b.kind).toBe('other-header');
