@@ -1,6 +1,6 @@
-import Papa from 'papaparse';
 import { KNOWN_COLUMNS } from '../core/audit/sample.js';
 import { isStrictNumber } from '../core/numeric/strict-number.js';
+import { readCsv } from './csv-text.js';
 import type { SampleGrid } from './sample-table.js';
 
 /** A block of rows pasted from a spreadsheet (tab-separated) or as CSV, read against the table's header. */
@@ -28,7 +28,9 @@ export function readPasteBlock(text: string, tableHeader: readonly string[]): Pa
   const body = text.replace(/^\uFEFF/, '').replace(/\r\n?/g, '\n');
   if (!body.trim()) return { kind: 'empty' };
   const delimiter = body.includes('\t') ? '\t' : ',';
-  const data = (Papa.parse<string[]>(body, { delimiter, skipEmptyLines: 'greedy' }).data as string[][]).map((r) => r.map((c) => c.trim()));
+  const data = readCsv(body, { delimiter })
+    .filter((r) => r.join('').trim() !== '')
+    .map((r) => r.map((c) => c.trim()));
   if (!data.length) return { kind: 'empty' };
   if (isHeaderLine(data[0], tableHeader)) {
     const header = data[0];

@@ -1,6 +1,6 @@
-import Papa from 'papaparse';
+import { readCsv, writeCsv } from './csv-text.js';
 
-/** The sample as an editable grid: header + rows of cell text, to and from CSV (papaparse). */
+/** The sample as an editable grid: header + rows of cell text, to and from CSV (read as the audit reads it). */
 export interface SampleGrid {
   readonly header: readonly string[];
   readonly rows: readonly (readonly string[])[];
@@ -11,15 +11,14 @@ export const isBlankRow = (r: readonly string[]): boolean => r.every((c) => c.tr
 
 /** Reads the sample text; blank rows are kept (so a row just added survives a round trip). */
 export function gridFromCsv(csv: string): SampleGrid {
-  const res = Papa.parse<string[]>(csv.replace(/^\uFEFF/, ''), { skipEmptyLines: true });
-  const data = res.data as string[][];
+  const data = readCsv(csv, { skipEmptyLines: true });
   if (!data.length) return { header: ['id', 'z', 'muv'], rows: [] };
   const header = data[0].map((h) => h.trim());
   return { header, rows: data.slice(1).map((r) => header.map((_, i) => r[i] ?? '')) };
 }
 
 export function csvFromGrid(g: SampleGrid): string {
-  return Papa.unparse([g.header as string[], ...(g.rows as string[][])], { newline: '\n' }) + '\n';
+  return writeCsv([g.header, ...g.rows]) + '\n';
 }
 
 /**

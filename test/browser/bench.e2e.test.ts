@@ -226,7 +226,7 @@ describe('the bench: editing the sample', () => {
     button(app, 'Undo').click();
     await caughtUp(app, 'the results match the state undone to');
     expect(deep(app, 'results-table tr[data-id="QF-101"] td')[1].textContent).to.equal('7.42');
-    expect(saved().sample_csv).to.contain('QF-101,7.42');
+    await until(() => saved()?.sample_csv.includes('QF-101,7.42'), 'the saved state is the one undone to');
     app.remove();
   });
 
