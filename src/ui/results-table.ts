@@ -159,6 +159,8 @@ export class ResultsTable extends LitElement {
     this.offsets = rowOffsets(this.view.map((g) => this.rowH + (this.expanded.has(idOf(g)) ? detailH : 0)));
     this.style.setProperty('--detail-h', `${detailH - 1}px`);
     this.win = rowWindow(this.offsets, this.scrollPos, this.viewH);
+    // Keep the active row among the rendered ones (aria-activedescendant must name an element in the page).
+    if (this.win.end > this.win.start && (this.active < this.win.start || this.active >= this.win.end)) this.active = Math.min(this.win.end - 1, Math.max(this.win.start, this.active));
     // Spacer heights through the CSSOM (the page's CSP forbids style attributes in markup).
     this.style.setProperty('--pad-top', `${this.win.padTop}px`);
     this.style.setProperty('--pad-bottom', `${this.win.padBottom}px`);

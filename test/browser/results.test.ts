@@ -79,6 +79,9 @@ describe('<results-table> with 5000 rows', () => {
     expect(a.bottom).to.be.at.most(b.bottom + 1);
     expect(a.top).to.be.at.least(b.top);
     expect(qa(el, 'tr[data-id]').length).to.be.lessThan(80);
+    // The active row follows the scroll, so the table's active descendant is always a rendered row.
+    const active = q(el, 'table').getAttribute('aria-activedescendant')!;
+    expect(el.shadowRoot!.getElementById(active), active).to.not.equal(null);
   });
 
   it('moves with the keyboard: End reaches the last row, ↑ the one before, Home the first; Enter selects', async () => {
