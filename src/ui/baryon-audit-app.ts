@@ -60,7 +60,7 @@ export class BaryonAuditApp extends LitElement {
   private lastShown = 0;
   /** Figure models of the response on show, rebuilt only when the response or the selection changes. */
   private figCache?: { id: number; selected: string; figs: ChartModel[] };
-  /** Inputs being typed into (an `input` event since their last `change`): Ctrl-Z there is the field's own. */
+  /** Inputs that have been typed into (fields without a `data-v` committed value): Ctrl-Z there is theirs. */
   private typing = new WeakSet<EventTarget>();
 
   private get csv(): string {
@@ -122,7 +122,6 @@ export class BaryonAuditApp extends LitElement {
     window.addEventListener('hashchange', this.onHash);
     this.addEventListener('keydown', this.onKey);
     this.addEventListener('input', this.onInput);
-    this.addEventListener('change', this.onChange);
   }
 
   disconnectedCallback(): void {
@@ -130,7 +129,6 @@ export class BaryonAuditApp extends LitElement {
     window.removeEventListener('hashchange', this.onHash);
     this.removeEventListener('keydown', this.onKey);
     this.removeEventListener('input', this.onInput);
-    this.removeEventListener('change', this.onChange);
     this.controller?.dispose();
   }
 
@@ -214,11 +212,11 @@ export class BaryonAuditApp extends LitElement {
     this.typing.add(e.composedPath()[0]);
   };
 
-  private onChange = (e: Event): void => {
-    this.typing.delete(e.composedPath()[0]);
-  };
-
-  /** Ctrl/Cmd-Z undoes, Shift-Ctrl/Cmd-Z (or Ctrl-Y) redoes, except inside a field being typed into. */
+  /**
+   * Ctrl/Cmd-Z undoes, Shift-Ctrl/Cmd-Z (or Ctrl-Y) redoes, except inside a field whose text differs from
+   * the value it shows (`data-v`, set by the elements), or a text box typed into: there the field's own
+   * undo applies.
+   */
   private onKey = (e: KeyboardEvent): void => {
     if (!(e.ctrlKey || e.metaKey) || e.altKey) return;
     const k = e.key.toLowerCase();
@@ -226,7 +224,8 @@ export class BaryonAuditApp extends LitElement {
     const isRedo = (k === 'z' && e.shiftKey) || (k === 'y' && !e.shiftKey);
     if (!isUndo && !isRedo) return;
     const t = e.composedPath()[0];
-    if (t instanceof HTMLTextAreaElement || (t instanceof HTMLInputElement && this.typing.has(t))) return;
+    const typing = t instanceof HTMLInputElement && (t.dataset.v !== undefined ? t.value !== t.dataset.v : this.typing.has(t));
+    if (t instanceof HTMLTextAreaElement || typing) return;
     e.preventDefault();
     if (isUndo) this.undo();
     else this.redo();

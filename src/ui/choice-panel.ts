@@ -1,4 +1,4 @@
-import { LitElement, css, html, nothing, type PropertyValues } from 'lit';
+import { LitElement, css, html, noChange, nothing, type PropertyValues } from 'lit';
 import { customElement, property, state } from 'lit/decorators.js';
 import { live } from 'lit/directives/live.js';
 import type { AuditChoices } from '../core/audit/index.js';
@@ -163,7 +163,8 @@ export class ChoicePanel extends LitElement {
         step=${step}
         aria-describedby=${`d-${id}`}
         aria-invalid=${this.problems[id] ? 'true' : 'false'}
-        .value=${live(shortNumber(value))}
+        .value=${this.problems[id] ? noChange : live(shortNumber(value))}
+        data-v=${shortNumber(value)}
         @change=${(e: Event) => onChange((e.target as HTMLInputElement).value)}
       />${described(`d-${id}`, text)}${this.err(id)}</label>`;
   }

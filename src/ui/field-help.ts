@@ -17,7 +17,7 @@ export class FieldHelp implements ReactiveController {
 
   private find(e: Event): string {
     for (const n of e.composedPath()) {
-      if (n === this.host) break;
+      if (n === this.host || n === this.host.shadowRoot) break;
       if (n instanceof HTMLElement && n.dataset.help) return n.dataset.help;
     }
     return '';
@@ -48,17 +48,25 @@ export class FieldHelp implements ReactiveController {
     this.set();
   };
 
+  /**
+   * Listens on the shadow root: focus moving between two fields of the same element is not seen
+   * by the host (the event's target and related target both retarget to it).
+   */
+  private get root(): EventTarget {
+    return this.host.shadowRoot ?? this.host;
+  }
+
   hostConnected(): void {
-    this.host.addEventListener('focusin', this.onFocusIn);
-    this.host.addEventListener('focusout', this.onFocusOut);
-    this.host.addEventListener('pointerover', this.onOver);
+    this.root.addEventListener('focusin', this.onFocusIn);
+    this.root.addEventListener('focusout', this.onFocusOut);
+    this.root.addEventListener('pointerover', this.onOver);
     this.host.addEventListener('pointerleave', this.onLeave);
   }
 
   hostDisconnected(): void {
-    this.host.removeEventListener('focusin', this.onFocusIn);
-    this.host.removeEventListener('focusout', this.onFocusOut);
-    this.host.removeEventListener('pointerover', this.onOver);
+    this.root.removeEventListener('focusin', this.onFocusIn);
+    this.root.removeEventListener('focusout', this.onFocusOut);
+    this.root.removeEventListener('pointerover', this.onOver);
     this.host.removeEventListener('pointerleave', this.onLeave);
   }
 

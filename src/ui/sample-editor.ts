@@ -380,6 +380,7 @@ export class SampleEditor extends LitElement {
             data-c=${c}
             tabindex=${tab(c)}
             .value=${live(cell)}
+            data-v=${cell}
             aria-label=${`row ${r + 1}, ${col}`}
             aria-invalid=${reason ? 'true' : 'false'}
             title=${reason ?? ''}

@@ -222,6 +222,23 @@ describe('the bench: editing the sample', () => {
     await sendKeys({ up: 'Control' });
     await settle(app);
     expect(cell(app, 'row 1, z').value).to.equal('9.99');
+    // In a cell: while typing, Ctrl-Z is the cell's own; once the text is committed (Enter), it undoes the edit.
+    const id2 = cell(app, 'row 2, id');
+    id2.focus();
+    id2.select();
+    await sendKeys({ type: 'NEW-ID' });
+    await sendKeys({ press: 'Enter' });
+    await settle(app);
+    expect(ids(app)[1]).to.equal('NEW-ID');
+    await sendKeys({ press: 'ArrowUp' });
+    await settle(app);
+    expect(deep(app, 'sample-editor input:focus')[0]?.getAttribute('aria-label')).to.equal('row 2, id');
+    await sendKeys({ down: 'Control' });
+    await sendKeys({ press: 'z' });
+    await sendKeys({ up: 'Control' });
+    await settle(app);
+    expect(ids(app)[1]).to.equal('QF-214');
+    expect(cell(app, 'row 1, z').value).to.equal('9.99');
     // The results and the saved state follow the state undone to.
     button(app, 'Undo').click();
     await caughtUp(app, 'the results match the state undone to');
@@ -389,6 +406,10 @@ describe('the bench: survey and choices', () => {
     await settle(app);
     expect(deep(app, 'choice-panel .help')[0].textContent).to.contain('Hubble constant');
     expect(h0.getAttribute('aria-describedby')).to.match(/^d-/);
+    // Tab to the next field of the same panel: its explanation replaces the first.
+    await sendKeys({ press: 'Tab' });
+    await settle(app);
+    expect(deep(app, 'choice-panel .help')[0].textContent).to.contain('matter density');
     app.remove();
   });
 });
