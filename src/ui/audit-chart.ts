@@ -1,19 +1,32 @@
-import { LitElement, css, html, unsafeCSS } from 'lit';
-import { customElement, property } from 'lit/decorators.js';
+import { LitElement, css, html, type PropertyValues } from 'lit';
+import { customElement, property, state } from 'lit/decorators.js';
 import uPlot from 'uplot';
-import type { ChartModel } from './chart/chart-config.js';
-import { drawMarker } from './chart/marker-path.js';
-import { COLORS } from './palette.js';
-import { chartToSvg } from './chart/svg-export.js';
+import type { ChartModel, MarkerSet } from './chart/chart-config.js';
+import { FULL_POINTS, labelPoints } from './chart/legibility.js';
+import { addMarker } from './chart/marker-path.js';
+import { pixelsFor, withDpi } from './chart/png-dpi.js';
+import { COLUMN_MM, layoutSvg, legendEntries, type SvgOptions } from './chart/svg-export.js';
+import { lineSample, mark } from './verdict-marks.js';
 
 /**
- * <audit-chart>: draws one ChartModel with uPlot (lines on a shared x axis; markers with error bars in a
- * draw hook). Re-draws with setData when the series layout is unchanged. Fires `chart-drawn` after every
- * draw (detail: { id, markers }) and `chart-error` if drawing fails. Exports PNG and SVG with the caption.
+ * <audit-chart>: draws one ChartModel with uPlot (lines on a shared x axis; density layer, markers with error
+ * bars, galaxies in tension on top, the highlighted galaxy ringed and labelled, in a draw hook). Re-draws with
+ * setData when the series layout is unchanged. Exports PNG (at a print width and resolution, with the dpi
+ * written into the file) and SVG at print size, both from the same SVG drawing.
+ * Properties: `model`, `highlight` (a galaxy id to ring and label; the page passes its selected galaxy).
+ * Fires `chart-drawn` after every draw (detail: { id, markers, labels }), `chart-error` if drawing fails and
+ * `download` (detail: { name, blob }) for an export.
  */
 @customElement('audit-chart')
 export class AuditChart extends LitElement {
   @property({ attribute: false }) model?: ChartModel;
+  @property() highlight = '';
+  /** Print width of the exports, mm. */
+  @state() widthMm: number = COLUMN_MM.single;
+  /** Resolution of the PNG export, dots per inch. */
+  @state() dpi = 300;
+  @state() private withCaption = true;
+  @state() private labelTension = false;
 
   private plot?: uPlot;
   private layoutKey = '';
@@ -24,26 +37,40 @@ export class AuditChart extends LitElement {
     figure { margin: 0; }
     figcaption { font-size: 0.85rem; color: #333; margin-top: 0.3rem; }
     .plot { width: 100%; min-height: 320px; }
-    .tools { display: flex; gap: 0.5rem; justify-content: flex-end; }
-    button { font: inherit; padding: 0.2rem 0.6rem; }
+    .tools { display: flex; flex-wrap: wrap; gap: 0.4rem 0.7rem; justify-content: flex-end; align-items: center; font-size: 0.82rem; }
+    button, select { font: inherit; padding: 0.15rem 0.5rem; }
     h3 { font-size: 1rem; margin: 0.2rem 0; }
-    .mlegend { list-style: none; display: flex; flex-wrap: wrap; gap: 0.8rem; padding: 0; margin: 0.2rem 0; font-size: 0.85rem; }
-    ${unsafeCSS(COLORS.map((c, i) => `.c${i} { color: ${c}; }`).join('\n'))}
+    .legend { list-style: none; display: flex; flex-wrap: wrap; gap: 0.2rem 0.9rem; padding: 0; margin: 0.2rem 0; font-size: 0.82rem; }
+    .legend li { display: inline-flex; align-items: center; gap: 0.3rem; }
+    svg.mark { flex: none; }
   `;
 
   render() {
     const m = this.model;
+    const entries = m ? legendEntries(m) : [];
     return html`<link rel="stylesheet" href=${new URL('uPlot.min.css', import.meta.url).href} />
       <figure role="group" aria-label=${m?.title ?? 'figure'}>
         <h3>${m?.title ?? ''}</h3>
         <div class="plot" part="plot"></div>
-        ${m?.markers.length
-          ? html`<ul class="mlegend" aria-label="markers">
-              ${m.markers.map((s) => html`<li class=${`c${Math.max(0, COLORS.indexOf(s.color as (typeof COLORS)[number]))}`}>${s.label}</li>`)}
+        ${entries.length
+          ? html`<ul class="legend" aria-label="legend">
+              ${entries.map((e) => html`<li>${e.kind === 'line' ? lineSample(e.color, e.dash, e.width ?? 1.5) : mark(e.set.shape, e.set.color)}<span>${e.label}</span></li>`)}
             </ul>`
           : ''}
-        <figcaption>${m?.caption ?? ''}</figcaption>
+        <figcaption>${m?.caption ?? ''}${this.highlight && m?.markers.some((s) => s.ids?.includes(this.highlight)) ? ` Ringed and labelled: ${this.highlight}.` : ''}</figcaption>
         <div class="tools">
+          ${m?.markers.some((s) => s.tension?.some((t) => t === 1))
+            ? html`<label><input type="checkbox" .checked=${this.labelTension} @change=${(e: Event) => (this.labelTension = (e.target as HTMLInputElement).checked)} /> label galaxies in tension</label>`
+            : ''}
+          <label>export width <select aria-label="export width" @change=${(e: Event) => (this.widthMm = Number((e.target as HTMLSelectElement).value))}>
+            <option value=${COLUMN_MM.single} ?selected=${this.widthMm === COLUMN_MM.single}>single column, 88 mm</option>
+            <option value=${COLUMN_MM.double} ?selected=${this.widthMm === COLUMN_MM.double}>double column, 180 mm</option>
+          </select></label>
+          <label>PNG <select aria-label="PNG resolution" @change=${(e: Event) => (this.dpi = Number((e.target as HTMLSelectElement).value))}>
+            <option value="300" ?selected=${this.dpi === 300}>300 dpi</option>
+            <option value="600" ?selected=${this.dpi === 600}>600 dpi</option>
+          </select></label>
+          <label><input type="checkbox" .checked=${this.withCaption} @change=${(e: Event) => (this.withCaption = (e.target as HTMLInputElement).checked)} /> title and caption in the file</label>
           <button type="button" @click=${() => this.exportPng()} ?disabled=${!m}>PNG</button>
           <button type="button" @click=${() => this.exportSvg()} ?disabled=${!m}>SVG</button>
         </div>
@@ -57,12 +84,100 @@ export class AuditChart extends LitElement {
     this.plot = undefined;
   }
 
-  protected updated(): void {
+  protected updated(changed: PropertyValues): void {
     try {
-      this.draw();
+      if (changed.has('model') || !this.plot) this.draw();
+      else if (changed.has('highlight') || changed.has('labelTension')) this.plot.redraw(false, false);
     } catch (e) {
       this.dispatchEvent(new CustomEvent('chart-error', { detail: { id: this.model?.id, message: (e as Error).message }, bubbles: true, composed: true }));
     }
+  }
+
+  /** Density layer, markers (ordinary ones, then galaxies in tension), highlight ring and labels. */
+  private drawOverlay(u: uPlot): void {
+    const m = this.model;
+    if (!m) return;
+    const ctx = u.ctx;
+    const dpr = devicePixelRatio;
+    const X = (v: number): number => u.valToPos(v, 'x', true);
+    const Y = (v: number): number => u.valToPos(v, 'y', true);
+    ctx.save();
+    ctx.setLineDash([]);
+    ctx.beginPath();
+    ctx.rect(u.bbox.left, u.bbox.top, u.bbox.width, u.bbox.height);
+    ctx.clip();
+    const d = m.density;
+    if (d && d.max > 0) {
+      const cw = (d.x1 - d.x0) / d.nx;
+      const ch = (d.y1 - d.y0) / d.ny;
+      for (let j = 0; j < d.ny; j++)
+        for (let i = 0; i < d.nx; i++) {
+          const c = d.counts[j * d.nx + i];
+          if (!c) continue;
+          ctx.fillStyle = `rgba(85,85,85,${(0.12 + (0.55 * Math.log1p(c)) / Math.log1p(d.max)).toFixed(3)})`;
+          const x0 = X(d.x0 + i * cw);
+          const y0 = Y(d.y0 + (j + 1) * ch);
+          ctx.fillRect(x0, y0, X(d.x0 + (i + 1) * cw) - x0, Y(d.y0 + j * ch) - y0);
+        }
+    }
+    let count = 0;
+    const drawSet = (s: MarkerSet, top: boolean): void => {
+      const st = top ? FULL_POINTS : (m.points ?? FULL_POINTS);
+      const r = st.radius * dpr;
+      const bars = new Path2D();
+      const marks = new Path2D();
+      for (let i = 0; i < s.x.length; i++) {
+        if ((s.tension?.[i] === 1) !== top) continue;
+        const x = X(s.x[i]);
+        const y = Y(s.y[i]);
+        if (!Number.isFinite(x) || !Number.isFinite(y)) continue;
+        if (st.errorWidth > 0 && s.yLo && s.yHi) {
+          bars.moveTo(x, Y(s.yLo[i]));
+          bars.lineTo(x, Y(s.yHi[i]));
+        }
+        addMarker(marks, s.shape, x, y, r);
+        count++;
+      }
+      ctx.globalAlpha = st.alpha;
+      ctx.strokeStyle = s.color;
+      ctx.fillStyle = s.color;
+      if (st.errorWidth > 0) {
+        ctx.lineWidth = st.errorWidth * dpr;
+        ctx.stroke(bars);
+      }
+      ctx.fill(marks);
+      if (st.outline) {
+        ctx.strokeStyle = '#000';
+        ctx.lineWidth = 0.6 * dpr;
+        ctx.stroke(marks);
+      }
+      ctx.globalAlpha = 1;
+    };
+    for (const s of m.markers) drawSet(s, false);
+    for (const s of m.markers) drawSet(s, true);
+    const { labels } = labelPoints(m, this.highlight, this.labelTension);
+    const rr = FULL_POINTS.radius * dpr;
+    ctx.font = `${11 * dpr}px sans-serif`;
+    ctx.lineJoin = 'round';
+    for (const l of labels) {
+      const x = X(l.x);
+      const y = Y(l.y);
+      if (l.highlight) {
+        ctx.beginPath();
+        ctx.arc(x, y, rr * 2, 0, 2 * Math.PI);
+        ctx.strokeStyle = '#000';
+        ctx.lineWidth = 1.5 * dpr;
+        ctx.stroke();
+      }
+      ctx.font = `${l.highlight ? 'bold ' : ''}${11 * dpr}px sans-serif`;
+      ctx.strokeStyle = '#fff';
+      ctx.lineWidth = 3 * dpr;
+      ctx.strokeText(l.id, x + rr * 2.2, y - rr * 1.6);
+      ctx.fillStyle = '#000';
+      ctx.fillText(l.id, x + rr * 2.2, y - rr * 1.6);
+    }
+    ctx.restore();
+    this.dispatchEvent(new CustomEvent('chart-drawn', { detail: { id: m.id, markers: count, labels: labels.map((l) => l.id) }, bubbles: true, composed: true }));
   }
 
   private draw(): void {
@@ -87,6 +202,7 @@ export class AuditChart extends LitElement {
       }
       return [lo, hi];
     };
+    const cats = m.xCategories;
     const opts: uPlot.Options = {
       width,
       height: 340,
@@ -97,7 +213,7 @@ export class AuditChart extends LitElement {
             const [a, b] = markerRange('x');
             const l = Math.min(lo, a);
             const h = Math.max(hi, b);
-            const pad = m.xCategories ? 0.5 : 0.02 * (h - l || 1);
+            const pad = cats ? 0.5 : 0.02 * (h - l || 1);
             return [l - pad, h + pad];
           },
         },
@@ -112,52 +228,13 @@ export class AuditChart extends LitElement {
         },
       },
       axes: [
-        { label: m.xLabel, values: m.xCategories ? (_u, ticks) => ticks.map((t) => (Number.isInteger(t) ? m.xCategories![t - 1] ?? '' : '')) : undefined, splits: m.xCategories ? () => m.xCategories!.map((_, i) => i + 1) : undefined },
+        { label: m.xLabel, values: cats ? (_u, ticks) => ticks.map((t) => (Number.isInteger(t) ? cats[t - 1] ?? '' : '')) : undefined, splits: cats ? () => cats.map((_, i) => i + 1) : undefined },
         { label: m.yLabel },
       ],
-      series: [{ label: m.xLabel }, ...m.lines.map((l) => ({ label: l.label, stroke: l.color, width: l.width ?? 1.5, dash: l.dash, spanGaps: true, points: { show: false } }))],
-      bands: m.bands?.map(([a, b]) => ({ series: [b + 1, a + 1] as [number, number], fill: 'rgba(120,120,120,0.12)' })),
-      legend: { show: true, live: false },
-      hooks: {
-        draw: [
-          (u) => {
-            const ctx = u.ctx;
-            const r = 5 * devicePixelRatio;
-            ctx.save();
-            ctx.setLineDash([]);
-            ctx.beginPath();
-            ctx.rect(u.bbox.left, u.bbox.top, u.bbox.width, u.bbox.height);
-            ctx.clip();
-            let count = 0;
-            for (const s of this.model?.markers ?? []) {
-              ctx.strokeStyle = s.color;
-              ctx.fillStyle = s.color;
-              ctx.lineWidth = 1.5 * devicePixelRatio;
-              for (let i = 0; i < s.x.length; i++) {
-                const x = u.valToPos(s.x[i], 'x', true);
-                const y = u.valToPos(s.y[i], 'y', true);
-                if (!Number.isFinite(x) || !Number.isFinite(y)) continue;
-                if (s.yLo && s.yHi) {
-                  ctx.beginPath();
-                  ctx.moveTo(x, u.valToPos(s.yLo[i], 'y', true));
-                  ctx.lineTo(x, u.valToPos(s.yHi[i], 'y', true));
-                  ctx.stroke();
-                }
-                drawMarker(ctx, s.shape, x, y, r);
-                ctx.fill();
-                ctx.strokeStyle = '#000';
-                ctx.lineWidth = 0.6 * devicePixelRatio;
-                ctx.stroke();
-                ctx.strokeStyle = s.color;
-                ctx.lineWidth = 1.5 * devicePixelRatio;
-                count++;
-              }
-            }
-            ctx.restore();
-            this.dispatchEvent(new CustomEvent('chart-drawn', { detail: { id: this.model?.id, markers: count }, bubbles: true, composed: true }));
-          },
-        ],
-      },
+      series: [{ label: m.xLabel }, ...m.lines.map((l) => ({ label: l.label, stroke: l.color, width: l.width ?? 1.5, dash: l.dash ? [...l.dash] : undefined, cap: 'round' as CanvasLineCap, spanGaps: true, points: { show: false } }))],
+      bands: m.bands?.map(([a, b]) => ({ series: [b + 1, a + 1] as [number, number], fill: 'rgba(120,120,120,0.18)' })),
+      legend: { show: false },
+      hooks: { draw: [(u) => this.drawOverlay(u)] },
     };
     this.plot = new uPlot(opts, data, host);
     if (!this.resizeObserver && typeof ResizeObserver !== 'undefined') {
@@ -169,60 +246,62 @@ export class AuditChart extends LitElement {
     }
   }
 
-  /** The figure as a standalone SVG document (axes, legend, caption). */
-  svg(): string {
-    if (!this.model) return '';
+  /** Export options: the ranges on screen, the chosen width, the highlight and the labels. */
+  private svgOptions(widthMm: number): SvgOptions {
     const x = this.plot?.scales.x;
     const y = this.plot?.scales.y;
-    const xr = x && x.min !== undefined && x.max !== undefined ? ([x.min, x.max] as [number, number]) : undefined;
-    const yr = y && y.min !== undefined && y.max !== undefined ? ([y.min, y.max] as [number, number]) : undefined;
-    return chartToSvg(this.model, xr, yr);
+    return {
+      xRange: x && x.min !== undefined && x.max !== undefined ? [x.min, x.max] : undefined,
+      yRange: y && y.min !== undefined && y.max !== undefined ? [y.min, y.max] : undefined,
+      widthMm,
+      caption: this.withCaption,
+      highlight: this.highlight,
+      labelTension: this.labelTension,
+    };
   }
 
-  /** The figure as a PNG with its title, legend text and caption under the plot. */
-  async png(): Promise<Blob> {
-    const src = this.plot?.ctx.canvas;
-    if (!src || !this.model) throw new Error('no figure drawn yet');
-    const m = this.model;
-    const legend = [...m.lines.map((l) => `— ${l.label}`), ...m.markers.map((s) => s.label)].join('    ');
-    const words = `${legend}. ${m.caption}`.split(/\s+/);
-    const out = document.createElement('canvas');
-    const w = src.width;
-    const ctx0 = out.getContext('2d')!;
-    ctx0.font = `${12 * devicePixelRatio}px sans-serif`;
-    const lines: string[] = [];
-    let line = '';
-    for (const wd of words) {
-      const t = line ? line + ' ' + wd : wd;
-      if (ctx0.measureText(t).width > w - 20 && line) {
-        lines.push(line);
-        line = wd;
-      } else line = t;
+  /** The figure as a standalone SVG document at print size (width in mm, fonts in pt). */
+  svg(widthMm = this.widthMm): string {
+    return this.model ? layoutSvg(this.model, this.svgOptions(widthMm)).svg : '';
+  }
+
+  /** The figure as a PNG at a print width and resolution (pixels across = width / 25.4 mm × dpi), dpi in the file. */
+  async png(widthMm = this.widthMm, dpi = this.dpi): Promise<Blob> {
+    if (!this.model) throw new Error('no figure drawn yet');
+    const { svg, size } = layoutSvg(this.model, this.svgOptions(widthMm));
+    const w = pixelsFor(widthMm, dpi);
+    const h = Math.round((size.heightPt * w) / size.widthPt);
+    const url = URL.createObjectURL(new Blob([svg], { type: 'image/svg+xml' }));
+    try {
+      const img = new Image(w, h);
+      img.src = url;
+      await img.decode();
+      const out = document.createElement('canvas');
+      out.width = w;
+      out.height = h;
+      const ctx = out.getContext('2d')!;
+      ctx.fillStyle = '#fff';
+      ctx.fillRect(0, 0, w, h);
+      ctx.drawImage(img, 0, 0, w, h);
+      const blob = await new Promise<Blob>((resolve, reject) => out.toBlob((b) => (b ? resolve(b) : reject(new Error('PNG encoding failed'))), 'image/png'));
+      return new Blob([withDpi(new Uint8Array(await blob.arrayBuffer()), dpi) as Uint8Array<ArrayBuffer>], { type: 'image/png' });
+    } finally {
+      URL.revokeObjectURL(url);
     }
-    if (line) lines.push(line);
-    const lh = 16 * devicePixelRatio;
-    out.width = w;
-    out.height = src.height + 30 * devicePixelRatio + lines.length * lh + 10;
-    const ctx = out.getContext('2d')!;
-    ctx.fillStyle = '#fff';
-    ctx.fillRect(0, 0, out.width, out.height);
-    ctx.fillStyle = '#000';
-    ctx.font = `bold ${14 * devicePixelRatio}px sans-serif`;
-    ctx.fillText(m.title, 10, 20 * devicePixelRatio);
-    ctx.drawImage(src, 0, 30 * devicePixelRatio);
-    ctx.font = `${12 * devicePixelRatio}px sans-serif`;
-    lines.forEach((l, i) => ctx.fillText(l, 10, src.height + 30 * devicePixelRatio + (i + 1) * lh));
-    return new Promise((resolve, reject) => out.toBlob((b) => (b ? resolve(b) : reject(new Error('PNG encoding failed'))), 'image/png'));
   }
 
   private async exportPng(): Promise<void> {
-    const blob = await this.png();
-    this.dispatchEvent(new CustomEvent('download', { detail: { name: `${this.model!.id}.png`, blob }, bubbles: true, composed: true }));
+    try {
+      const blob = await this.png();
+      this.dispatchEvent(new CustomEvent('download', { detail: { name: `${this.model!.id}-${this.widthMm}mm-${this.dpi}dpi.png`, blob }, bubbles: true, composed: true }));
+    } catch (e) {
+      this.dispatchEvent(new CustomEvent('chart-error', { detail: { id: this.model?.id, message: `PNG export: ${(e as Error).message}` }, bubbles: true, composed: true }));
+    }
   }
 
   private exportSvg(): void {
     const blob = new Blob([this.svg()], { type: 'image/svg+xml' });
-    this.dispatchEvent(new CustomEvent('download', { detail: { name: `${this.model!.id}.svg`, blob }, bubbles: true, composed: true }));
+    this.dispatchEvent(new CustomEvent('download', { detail: { name: `${this.model!.id}-${this.widthMm}mm.svg`, blob }, bubbles: true, composed: true }));
   }
 }
 

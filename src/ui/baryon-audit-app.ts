@@ -2,28 +2,54 @@ import { LitElement, css, html, nothing } from 'lit';
 import { customElement, state } from 'lit/decorators.js';
 import type { AuditChoices } from '../core/audit/choices.js';
 import type { RowProblem } from '../core/audit/sample.js';
-import { DEMO_SAMPLE_CSV } from '../demo/demo-sample.js';
+import { DEMO_SAMPLE_CSV, DEMO_SURVEY } from '../demo/demo-sample.js';
 import { decodeShare, encodeShare, loadSaved, makeRecord, recordFromJson, save } from './app-state.js';
 import { AuditController, type ControllerState } from './audit-controller.js';
 import type { ChartModel } from './chart/chart-config.js';
 import { densityFigure, explorerFigure, galaxyImfFigure, massRedshiftFigure } from './chart/figures.js';
+import type { PanelChoices } from './choice-panel.js';
 import { DEFAULT_CHOICES } from './default-choices.js';
 import { download } from './downloads.js';
+import { canRedo, canUndo, record, redo, startHistory, undo, type EditHistory, type HistoryLimits } from './edit-history.js';
+import type { SurveyChoices } from './survey-editor.js';
 import './audit-chart.js';
 import './choice-panel.js';
 import './results-table.js';
 import './sample-editor.js';
+import './survey-editor.js';
+
+/** One state of the bench: the sample text, every choice, and the edit that led to it (for Undo's label). */
+interface Bench {
+  readonly csv: string;
+  readonly choices: PanelChoices;
+  readonly what: string;
+}
+
+/** Undo reaches 200 edits back, within about 40 MB of sample text. */
+const HISTORY_LIMITS: HistoryLimits<Bench> = { maxEntries: 200, maxSize: 2e7, sizeOf: (b) => b.csv.length + 2000 };
+const sameBench = (a: Bench, b: Bench): boolean => a.csv === b.csv && a.choices === b.choices;
+const choicesKey = (c: AuditChoices): string => JSON.stringify(c);
+
+interface Invalid {
+  readonly field: string;
+  readonly message: string;
+}
 
 /**
- * <baryon-audit-app>: the page. Holds the sample text and the choices, asks the controller for audits
- * (debounced; the latest edit wins), shows results, figures, the summary and exports; restores state
- * from a share link, an imported JSON record or the saved state, and says when it cannot.
+ * <baryon-audit-app>: the page, a bench. Holds the sample text and the choices with their undo history
+ * (every edit of the sample, the survey or a choice; Undo/Redo buttons and Ctrl/Cmd-Z, Shift-Ctrl/Cmd-Z;
+ * "Demo sample" brings the invented demo back), asks the controller for audits (the latest edit wins),
+ * shows results, figures, the summary and exports, and marks them out of date while they no longer
+ * match the inputs (an invalid choice, or a run on its way). Restores state from a share link, an
+ * imported JSON record or the saved state, and says when it cannot.
  * Fires `audit-complete` (detail: { elapsedMs }) after the figures are drawn, `audit-failed` on errors.
  */
 @customElement('baryon-audit-app')
 export class BaryonAuditApp extends LitElement {
-  @state() private csv = DEMO_SAMPLE_CSV;
-  @state() private choices: AuditChoices = DEFAULT_CHOICES;
+  @state() private hist: EditHistory<Bench> = startHistory({ csv: DEMO_SAMPLE_CSV, choices: DEFAULT_CHOICES, what: 'open the demo' });
+  /** Invalid fields per element (choice panel, survey editor): results stay marked out of date meanwhile. */
+  @state() private invalid: Record<string, readonly Invalid[]> = {};
+  @state() private said = '';
   @state() private ctl: ControllerState = { status: 'idle', done: 0, total: 0, restarts: 0 };
   @state() private notice = '';
   @state() private selected = '';
@@ -34,6 +60,16 @@ export class BaryonAuditApp extends LitElement {
   private lastShown = 0;
   /** Figure models of the response on show, rebuilt only when the response or the selection changes. */
   private figCache?: { id: number; selected: string; figs: ChartModel[] };
+  /** Inputs that have been typed into (fields without a `data-v` committed value): Ctrl-Z there is theirs. */
+  private typing = new WeakSet<EventTarget>();
+
+  private get csv(): string {
+    return this.hist.present.csv;
+  }
+
+  private get choices(): PanelChoices {
+    return this.hist.present.choices;
+  }
 
   static styles = css`
     :host { display: block; font-family: system-ui, sans-serif; color: #111; }
@@ -51,9 +87,28 @@ export class BaryonAuditApp extends LitElement {
     .exports { display: flex; flex-wrap: wrap; gap: 0.5rem; }
     button, label.button { font: inherit; padding: 0.25rem 0.6rem; border: 1px solid #777; border-radius: 4px; background: #fafafa; cursor: pointer; }
     label.button:focus-within { outline: 2px solid #0072B2; }
-    .visually-hidden { position: absolute; width: 1px; height: 1px; overflow: hidden; clip: rect(0 0 0 0); }
-    pre.summary { white-space: pre-wrap; font-size: 0.85rem; background: #f7f7f7; padding: 0.6rem; border: 1px solid #ddd; }
-    progress { width: 12rem; }
+    .visually-hidden { position: absolute; width: 1px; height: 1px; overflow: hidden; clip-path: inset(50%); white-space: nowrap; }
+    section { position: relative; }
+    pre.summary { white-space: pre-wrap; overflow-wrap: anywhere; font-size: 0.85rem; background: #f7f7f7; padding: 0.6rem; border: 1px solid #ddd; }
+    progress { width: min(12rem, 40vw); }
+    section { min-width: 0; }
+    .status, .bench { flex-wrap: wrap; }
+    .bench { display: flex; gap: 0.5rem; align-items: center; margin: 0 0 0.4rem; }
+    .bench .last { font-size: 0.8rem; color: #444; }
+    button:disabled { cursor: default; color: #888; border-color: #ccc; }
+    button:focus-visible { outline: 2px solid #0072B2; outline-offset: 1px; }
+    label.button { position: relative; }
+    .skip:not(:focus) { position: absolute; width: 1px; height: 1px; overflow: hidden; clip-path: inset(50%); white-space: nowrap; }
+    .skip:focus { display: inline-block; margin: 0.2rem 0; padding: 0.2rem 0.5rem; background: #0072B2; color: #fff; }
+    h2:focus { outline: 2px solid #0072B2; }
+    .out { position: relative; }
+    /* The results' containing block clips sideways: nothing inside (hidden labels included) widens the page. */
+    .out > .body { position: relative; overflow-x: clip; transition: opacity 0.2s ease 0.4s; }
+    .out.pending > .body { opacity: 0.7; }
+    .out.stale > .body { opacity: 0.35; filter: grayscale(0.7); transition: none; }
+    .stale-badge { position: sticky; top: 0; z-index: 2; margin: 0.4rem 0; padding: 0.35rem 0.6rem; background: #fde2d6; border: 2px solid #D55E00; font-weight: 600; }
+    .stale-badge button { margin-left: 0.5rem; font-weight: normal; }
+    .explorer-z input { width: 5rem; }
   `;
 
   connectedCallback(): void {
@@ -65,11 +120,15 @@ export class BaryonAuditApp extends LitElement {
     void this.loadExplorer();
     this.schedule(0);
     window.addEventListener('hashchange', this.onHash);
+    this.addEventListener('keydown', this.onKey);
+    this.addEventListener('input', this.onInput);
   }
 
   disconnectedCallback(): void {
     super.disconnectedCallback();
     window.removeEventListener('hashchange', this.onHash);
+    this.removeEventListener('keydown', this.onKey);
+    this.removeEventListener('input', this.onInput);
     this.controller?.dispose();
   }
 
@@ -89,8 +148,7 @@ export class BaryonAuditApp extends LitElement {
     if (location.hash.startsWith('#state=')) {
       try {
         const rec = decodeShare(location.hash);
-        this.csv = rec.sample_csv;
-        this.choices = rec.choices;
+        this.open(rec.sample_csv, rec.choices, 'open the link');
         this.notice = 'State restored from the link.';
         return;
       } catch (e) {
@@ -98,11 +156,80 @@ export class BaryonAuditApp extends LitElement {
       }
     }
     const saved = loadSaved(localStorage);
-    if (saved.record) {
-      this.csv = saved.record.sample_csv;
-      this.choices = saved.record.choices;
-    } else if (saved.problem) this.notice = `Note: ${saved.problem}.`;
+    if (saved.record) this.open(saved.record.sample_csv, saved.record.choices, 'open the saved state');
+    else if (saved.problem) this.notice = `Note: ${saved.problem}.`;
   }
+
+  /** A state opened from a link or the saved state starts a fresh history. */
+  private open(csv: string, choices: AuditChoices, what: string): void {
+    this.hist = startHistory({ csv, choices, what });
+    this.invalid = {};
+  }
+
+  /** A new state of the bench (undoable); runs the audit, and the explorer if the physics changed. */
+  private commit(csv: string, choices: PanelChoices, what: string): void {
+    const before = this.hist.present;
+    this.hist = record(this.hist, { csv, choices, what }, HISTORY_LIMITS, sameBench);
+    this.changed(before);
+  }
+
+  private changed(before: Bench): void {
+    const now = this.hist.present;
+    if (now === before) return;
+    this.schedule();
+    const physics = (c: AuditChoices) => JSON.stringify([c.cosmology, c.transfer]);
+    if (physics(now.choices) !== physics(before.choices)) void this.loadExplorer();
+  }
+
+  /** Undoes the last edit of the sample, survey or choices. */
+  undo(): void {
+    if (!canUndo(this.hist)) return;
+    const before = this.hist.present;
+    this.hist = undo(this.hist);
+    this.said = `Undone: ${before.what}.`;
+    this.changed(before);
+  }
+
+  redo(): void {
+    if (!canRedo(this.hist)) return;
+    const before = this.hist.present;
+    this.hist = redo(this.hist);
+    this.said = `Redone: ${this.hist.present.what}.`;
+    this.changed(before);
+  }
+
+  /** Brings back the invented demo sample and its field (undoable). */
+  private restoreDemo(): void {
+    if (this.csv === DEMO_SAMPLE_CSV && this.choices.survey.name === DEMO_SURVEY.name) {
+      this.said = 'The demo sample is already on the bench.';
+      return;
+    }
+    this.commit(DEMO_SAMPLE_CSV, { ...this.choices, survey: DEMO_SURVEY, surveys: [], zBins: [] }, 'restore the demo sample');
+    this.said = 'The demo sample and its field are back; Undo returns to your sample.';
+  }
+
+  private onInput = (e: Event): void => {
+    this.typing.add(e.composedPath()[0]);
+  };
+
+  /**
+   * Ctrl/Cmd-Z undoes, Shift-Ctrl/Cmd-Z (or Ctrl-Y) redoes, except inside a field whose text differs from
+   * the value it shows (`data-v`, set by the elements), or a text box typed into: there the field's own
+   * undo applies.
+   */
+  private onKey = (e: KeyboardEvent): void => {
+    if (!(e.ctrlKey || e.metaKey) || e.altKey) return;
+    const k = e.key.toLowerCase();
+    const isUndo = k === 'z' && !e.shiftKey;
+    const isRedo = (k === 'z' && e.shiftKey) || (k === 'y' && !e.shiftKey);
+    if (!isUndo && !isRedo) return;
+    const t = e.composedPath()[0];
+    const typing = t instanceof HTMLInputElement && (t.dataset.v !== undefined ? t.value !== t.dataset.v : this.typing.has(t));
+    if (t instanceof HTMLTextAreaElement || typing) return;
+    e.preventDefault();
+    if (isUndo) this.undo();
+    else this.redo();
+  };
 
   private schedule(delay = 0): void {
     clearTimeout(this.timer);
@@ -123,7 +250,7 @@ export class BaryonAuditApp extends LitElement {
     try {
       const r = await this.controller.explore({ cosmology: this.choices.cosmology, transfer: this.choices.transfer, z });
       const c = this.choices.cosmology;
-      this.explorer = explorerFigure(r.log10M, r.series, z, `H0 = ${c.h0}, Ωm = ${c.omegaM}, σ8 = ${c.sigma8}, ${this.choices.transfer.kind}`);
+      this.explorer = explorerFigure(r.log10M, r.series, z, `H0 = ${c.h0}, Ωm = ${c.omegaM}, σ8 = ${c.sigma8}`, this.choices.transfer.kind);
     } catch (e) {
       this.notice = `halo-abundance explorer: ${(e as Error).message}`;
     }
@@ -140,16 +267,30 @@ export class BaryonAuditApp extends LitElement {
     }
   }
 
-  private onSample(e: CustomEvent<{ csv: string }>): void {
-    this.csv = e.detail.csv;
-    this.schedule();
+  private onSample(e: CustomEvent<{ csv: string; what?: string; fileName?: string }>): void {
+    this.commit(e.detail.csv, this.choices, e.detail.what ?? 'edit the sample');
+    if (e.detail.fileName && this.choices.survey.name === DEMO_SURVEY.name) {
+      const s = this.choices.survey;
+      this.notice = `${e.detail.fileName} is audited in the demo field "${s.name}" (${s.areaArcmin2} arcmin², ${s.zMin} < z < ${s.zMax}); set your own survey under Survey.`;
+    }
   }
 
-  private onChoices(e: CustomEvent<{ choices: AuditChoices }>): void {
-    const physicsChanged = JSON.stringify([e.detail.choices.cosmology, e.detail.choices.transfer]) !== JSON.stringify([this.choices.cosmology, this.choices.transfer]);
-    this.choices = e.detail.choices;
-    this.schedule();
-    if (physicsChanged) void this.loadExplorer();
+  private onChoices(e: CustomEvent<{ choices: PanelChoices }>): void {
+    this.commit(this.csv, e.detail.choices, 'change a choice');
+  }
+
+  private onSurvey(e: CustomEvent<SurveyChoices>): void {
+    this.commit(this.csv, { ...this.choices, ...e.detail }, 'edit the survey');
+  }
+
+  private onValidity(e: CustomEvent<{ source: string; problems: readonly Invalid[] }>): void {
+    this.invalid = { ...this.invalid, [e.detail.source]: e.detail.problems };
+  }
+
+  private focusById(id: string): void {
+    const el = this.renderRoot.querySelector<HTMLElement>(`#${id}`);
+    el?.focus();
+    el?.scrollIntoView({ block: 'start' });
   }
 
   private async importRecord(e: Event): Promise<void> {
@@ -159,10 +300,8 @@ export class BaryonAuditApp extends LitElement {
     if (!f) return;
     try {
       const rec = recordFromJson(await f.text());
-      this.csv = rec.sample_csv;
-      this.choices = rec.choices;
-      this.notice = `Restored ${f.name}.`;
-      this.schedule(0);
+      this.commit(rec.sample_csv, rec.choices, `import ${f.name}`);
+      this.notice = `Restored ${f.name} (Undo returns to the previous state).`;
     } catch (err) {
       this.notice = `${f.name} could not be imported: ${(err as Error).message}`;
     }
@@ -187,6 +326,12 @@ export class BaryonAuditApp extends LitElement {
     download(name, new Blob([text], { type }));
   }
 
+  /** Whether the results on show were computed from the inputs on the bench now. */
+  private upToDate(): boolean {
+    const rec = this.ctl.response?.result?.record;
+    return !!rec && rec.sample_csv === this.csv && choicesKey(rec.choices) === choicesKey(this.choices);
+  }
+
   render() {
     const resp = this.ctl.response;
     const result = resp?.result;
@@ -201,6 +346,16 @@ export class BaryonAuditApp extends LitElement {
         this.figCache = { id: resp.id, selected: this.selected, figs };
       }
     }
+    const invalid = Object.values(this.invalid).flat();
+    const stale = !!result && invalid.length > 0;
+    const pending = !!result && !stale && !this.upToDate();
+    const outClass = stale ? 'stale' : pending ? 'pending' : '';
+    const staleText = stale
+      ? `The results, figures and summary below are out of date: ${invalid.map((p) => p.message).join('; ')}. Fix the highlighted choice to update them.`
+      : pending
+        ? 'The results below are being updated for your latest edit.'
+        : '';
+    const h = this.hist;
     return html`
       <header>
         <h1>Baryon Audit</h1>
@@ -208,10 +363,23 @@ export class BaryonAuditApp extends LitElement {
       </header>
       <main>
         <section aria-label="inputs">
-          <h2>Sample</h2>
+          <h2 id="sample-heading" tabindex="-1">Sample</h2>
+          <a class="skip" href="#survey-heading" @click=${(e: Event) => {
+            e.preventDefault();
+            this.focusById('survey-heading');
+          }}>Skip the sample table</a>
+          <div class="bench" role="toolbar" aria-label="edit history">
+            <button type="button" aria-label="Undo" title=${canUndo(h) ? `Undo: ${h.present.what} (Ctrl+Z)` : 'nothing to undo'} ?disabled=${!canUndo(h)} @click=${() => this.undo()}>↶ Undo</button>
+            <button type="button" aria-label="Redo" title=${canRedo(h) ? `Redo: ${h.future[0].what} (Shift+Ctrl+Z)` : 'nothing to redo'} ?disabled=${!canRedo(h)} @click=${() => this.redo()}>↷ Redo</button>
+            <button type="button" @click=${() => this.restoreDemo()}>Demo sample</button>
+            <span class="last">${canUndo(h) ? `last edit: ${h.present.what}` : 'no edits yet'} · Ctrl/⌘+Z undoes, Shift+Ctrl/⌘+Z redoes</span>
+          </div>
+          <p class="visually-hidden" role="status">${this.said}</p>
           <sample-editor .csv=${this.csv} .problems=${problems} @sample-change=${this.onSample}></sample-editor>
-          <h2>Choices</h2>
-          <choice-panel .choices=${this.choices} @choices-change=${this.onChoices}></choice-panel>
+          <h2 id="survey-heading" tabindex="-1">Survey</h2>
+          <survey-editor .value=${{ survey: this.choices.survey, surveys: this.choices.surveys, zBins: this.choices.zBins }} @survey-change=${this.onSurvey} @choices-validity=${this.onValidity}></survey-editor>
+          <h2 id="choices-heading" tabindex="-1">Choices</h2>
+          <choice-panel .choices=${this.choices} @choices-change=${this.onChoices} @choices-validity=${this.onValidity}></choice-panel>
         </section>
         <section aria-label="results">
           ${this.notice ? html`<p class="notice" role="status">${this.notice} <button type="button" @click=${() => (this.notice = '')}>dismiss</button></p>` : nothing}
@@ -227,35 +395,56 @@ export class BaryonAuditApp extends LitElement {
             ? html`<p class="error" role="alert">${this.ctl.message} Your sample and choices are kept as you left them.
                 <button type="button" @click=${() => this.schedule(0)}>Run again with the current inputs</button></p>`
             : nothing}
-          <h2>Per galaxy</h2>
-          <results-table .result=${result} .selected=${this.selected} @galaxy-select=${(e: CustomEvent<{ id: string }>) => (this.selected = e.detail.id)}></results-table>
-          <h2>Figures</h2>
-          <div class="figs" @download=${(e: CustomEvent<{ name: string; blob: Blob }>) => download(e.detail.name, e.detail.blob)}>
-            ${figs.map((m) => html`<audit-chart .model=${m}></audit-chart>`)}
-            <div>
-              <label>explorer redshift <input type="number" min="0" max="30" step="0.5" .value=${String(this.explorerZ)} @change=${(e: Event) => {
-                const v = Number((e.target as HTMLInputElement).value);
-                if (Number.isFinite(v) && v >= 0 && v <= 30) {
-                  this.explorerZ = v;
-                  void this.loadExplorer();
-                } else this.notice = 'explorer redshift must be a number in [0, 30]';
-              }} /></label>
-              ${this.explorer ? html`<audit-chart .model=${this.explorer}></audit-chart>` : nothing}
+          <p class="visually-hidden" aria-live="polite" id="stale-text">${staleText}</p>
+          <div class="out ${outClass}" data-state=${stale ? 'out-of-date' : pending ? 'updating' : 'current'}>
+            ${stale
+              ? html`<p class="stale-badge" aria-hidden="true">out of date — fix the highlighted choice
+                  <button type="button" @click=${() => this.focusFirstInvalid()}>go to it</button></p>`
+              : nothing}
+            <div class="body" aria-describedby="stale-text">
+              <h2>Per galaxy</h2>
+              <results-table .result=${result} .selected=${this.selected} @galaxy-select=${(e: CustomEvent<{ id: string }>) => (this.selected = e.detail.id)}></results-table>
+              <h2>Figures</h2>
+              <div class="figs" @download=${(e: CustomEvent<{ name: string; blob: Blob }>) => download(e.detail.name, e.detail.blob)}>
+                ${figs.map((m) => html`<audit-chart .model=${m} .highlight=${this.selected}></audit-chart>`)}
+                <div>
+                  <label class="explorer-z">explorer redshift <input type="number" min="0" max="30" step="0.5" .value=${String(this.explorerZ)} @change=${(e: Event) => {
+                    const v = Number((e.target as HTMLInputElement).value);
+                    if (Number.isFinite(v) && v >= 0 && v <= 30) {
+                      this.explorerZ = v;
+                      void this.loadExplorer();
+                    } else this.notice = 'explorer redshift must be a number in [0, 30]';
+                  }} /></label>
+                  ${this.explorer ? html`<audit-chart .model=${this.explorer}></audit-chart>` : nothing}
+                </div>
+              </div>
+              <h2>Export</h2>
+              <div class="exports">
+                <button type="button" ?disabled=${!resp?.csv} @click=${() => this.exportText('baryon-audit.csv', resp!.csv!, 'text/csv')}>Results CSV</button>
+                <button type="button" ?disabled=${!result} @click=${() => this.exportText('baryon-audit.json', JSON.stringify(result, null, 1), 'application/json')}>Full JSON record</button>
+                <button type="button" ?disabled=${!resp?.markdown} @click=${() => this.exportText('baryon-audit.md', resp!.markdown!, 'text/markdown')}>Markdown summary</button>
+                <button type="button" @click=${() => this.copyShare()}>Share link</button>
+                <label class="button">Import JSON record…<input class="visually-hidden" type="file" accept=".json,application/json" @change=${this.importRecord} aria-label="Import a JSON record" /></label>
+              </div>
+              <h2>Summary</h2>
+              <pre class="summary">${resp?.markdown ?? ''}</pre>
             </div>
           </div>
-          <h2>Export</h2>
-          <div class="exports">
-            <button type="button" ?disabled=${!resp?.csv} @click=${() => this.exportText('baryon-audit.csv', resp!.csv!, 'text/csv')}>Results CSV</button>
-            <button type="button" ?disabled=${!result} @click=${() => this.exportText('baryon-audit.json', JSON.stringify(result, null, 1), 'application/json')}>Full JSON record</button>
-            <button type="button" ?disabled=${!resp?.markdown} @click=${() => this.exportText('baryon-audit.md', resp!.markdown!, 'text/markdown')}>Markdown summary</button>
-            <button type="button" @click=${() => this.copyShare()}>Share link</button>
-            <label class="button">Import JSON record…<input class="visually-hidden" type="file" accept=".json,application/json" @change=${this.importRecord} aria-label="Import a JSON record" /></label>
-          </div>
-          <h2>Summary</h2>
-          <pre class="summary">${resp?.markdown ?? ''}</pre>
         </section>
       </main>
     `;
+  }
+
+  /** Focus on the first field marked invalid in the survey editor or the choice panel. */
+  private focusFirstInvalid(): void {
+    for (const tag of ['survey-editor', 'choice-panel']) {
+      const el = this.renderRoot.querySelector(tag)?.shadowRoot?.querySelector<HTMLElement>('[aria-invalid="true"]');
+      if (el) {
+        el.focus();
+        el.scrollIntoView({ block: 'center' });
+        return;
+      }
+    }
   }
 }
 

@@ -1,151 +1,291 @@
-import { LitElement, css, html, nothing } from 'lit';
+import { LitElement, css, html, noChange, nothing, type PropertyValues } from 'lit';
 import { customElement, property, state } from 'lit/decorators.js';
+import { live } from 'lit/directives/live.js';
 import type { AuditChoices } from '../core/audit/index.js';
 import { PARAM_SPECS, PRESETS, type CosmologyParams } from '../core/cosmology/index.js';
 import { MASS_FUNCTIONS } from '../core/halos/index.js';
 import { IMF_PRESETS, parseCustomImf } from '../core/stars/index.js';
-
-type NumKey = 'epsRef' | 'quantile' | 'draws' | 'seed' | 'sliceDz' | 'formationZ';
-const NUM_FIELDS: { key: NumKey; label: string; min: number; max: number; step: string; help: string }[] = [
-  { key: 'epsRef', label: 'ε_ref', min: 0.0001, max: 1, step: '0.05', help: 'reference star-formation efficiency: above it a galaxy is strained' },
-  { key: 'quantile', label: 'rarest-halo quantile', min: 0.5, max: 0.99999, step: '0.001', help: 'quantile of the most-massive-halo distribution used as the ceiling' },
-  { key: 'draws', label: 'Monte Carlo draws', min: 100, max: 200000, step: '1000', help: 'draws per galaxy' },
-  { key: 'seed', label: 'seed', min: -2147483647, max: 2147483647, step: '1', help: 'random seed (same seed, same numbers)' },
-  { key: 'sliceDz', label: 'slice Δz', min: 0.1, max: 5, step: '0.1', help: 'width of the redshift slice around each galaxy' },
-  { key: 'formationZ', label: 'formation z', min: 1, max: 100, step: '1', help: 'formation redshift for the time budget' },
-];
+import { parseSfh } from '../core/stars/sfh.js';
+import { AUDIT_NUMBER_SPECS, type ChoiceNumberSpec } from './audit-number-specs.js';
+import { described, FieldHelp, helpStyles } from './field-help.js';
+import { isRounded, shortNumber } from './number-format.js';
 
 /**
- * <choice-panel>: survey, cosmology (preset + overrides), halo and population choices.
- * Property `choices` in; `choices-change` (detail: { choices }) out on every valid user change.
- * An invalid entry is named next to its field and not sent.
+ * The choices with the headline IMF. `headlineImf` is the IMF whose verdict heads each row without its
+ * own `imf_ref`; the audit takes the first compared IMF as headline, so the panel also puts it first.
+ */
+export type PanelChoices = AuditChoices & { readonly headlineImf?: string };
+
+export const headlineOf = (c: PanelChoices): string => (c.headlineImf && c.imfs.includes(c.headlineImf) ? c.headlineImf : c.imfs[0]);
+
+/** The IMF list with `name` first (the headline), the others in their order. */
+const withHeadline = (imfs: readonly string[], name: string): string[] => [name, ...imfs.filter((i) => i !== name)];
+
+const TRANSFERS: Record<string, string> = { eh98: 'Eisenstein & Hu 1998', 'eh98-nowiggle': 'Eisenstein & Hu 1998, no wiggles', bbks: 'BBKS 1986' };
+const SFHS = ['constant', 'burst', 'exp-declining', 'exp-rising', 'piecewise'];
+
+/**
+ * <choice-panel>: cosmology (preset + every parameter), haloes (mass function, transfer function,
+ * collapse threshold), stellar populations (IMFs compared, headline IMF, custom IMF, SFH) and the audit
+ * numbers. Property `choices` in; `choices-change` (detail: { choices }) on every valid change, and
+ * `choices-validity` (detail: { source: 'choices', problems: { field, message }[] }) whenever the set of
+ * invalid fields changes. An invalid entry is named next to its field and not sent. Explanations show
+ * in the help line on focus and on hover.
  */
 @customElement('choice-panel')
 export class ChoicePanel extends LitElement {
-  @property({ attribute: false }) choices?: AuditChoices;
+  @property({ attribute: false }) choices?: PanelChoices;
   @state() private problems: Record<string, string> = {};
+  private lastSent?: PanelChoices;
+  private readonly help = new FieldHelp(this);
 
-  static styles = css`
-    :host { display: block; font-size: 0.9rem; }
-    fieldset { border: 1px solid #ccc; margin: 0 0 0.6rem; padding: 0.4rem 0.6rem; }
-    legend { font-weight: 600; }
-    label { display: inline-flex; flex-direction: column; margin: 0.2rem 0.5rem 0.2rem 0; }
-    input[type='number'], input[type='text'], select { font: inherit; width: 8rem; }
-    .imfs label { flex-direction: row; gap: 0.3rem; align-items: center; }
-    .err { color: #8a2b00; font-size: 0.8rem; }
-  `;
+  static styles = [
+    helpStyles,
+    css`
+      :host { display: block; font-size: 0.9rem; }
+      fieldset { border: 1px solid #ccc; margin: 0 0 0.6rem; padding: 0.4rem 0.6rem; min-width: 0; }
+      legend { font-weight: 600; }
+      .fields { display: flex; flex-wrap: wrap; gap: 0.2rem 0.5rem; align-items: flex-start; }
+      label { display: inline-flex; flex-direction: column; margin: 0.2rem 0; max-width: 100%; }
+      input[type='number'], input[type='text'] { font: inherit; width: 8rem; box-sizing: border-box; }
+      input.wide { width: min(22rem, 100%); }
+      select { font: inherit; max-width: 100%; }
+      input[aria-invalid='true'] { outline: 2px solid #D55E00; background: #fde2d6; }
+      .checks label { flex-direction: row; gap: 0.3rem; align-items: center; }
+      .custom { display: flex; flex-wrap: wrap; gap: 0.4rem; align-items: flex-end; }
+      .custom label { flex-direction: column; align-items: flex-start; }
+      button { font: inherit; padding: 0.2rem 0.6rem; border: 1px solid #777; border-radius: 4px; background: #fafafa; cursor: pointer; }
+      .err { color: #8a2b00; font-size: 0.8rem; display: block; }
+      .note { font-size: 0.8rem; color: #444; margin: 0.2rem 0; }
+      .help { position: sticky; top: 0; z-index: 1; }
+      .help.on { background: #f4f8fb; }
+    `,
+  ];
 
-  private emit(next: AuditChoices): void {
+  protected willUpdate(changed: PropertyValues<this>): void {
+    // Choices from outside (undo, import, demo, link) replace whatever was being typed.
+    if (changed.has('choices') && this.choices !== this.lastSent && Object.values(this.problems).some(Boolean)) {
+      this.problems = {};
+      this.tell();
+    }
+  }
+
+  private tell(): void {
+    const problems = Object.entries(this.problems).filter(([, m]) => m).map(([field, message]) => ({ field, message }));
+    this.dispatchEvent(new CustomEvent('choices-validity', { detail: { source: 'choices', problems }, bubbles: true, composed: true }));
+  }
+
+  private setProblem(field: string, message: string): void {
+    if ((this.problems[field] ?? '') === message) return;
+    this.problems = { ...this.problems, [field]: message };
+    this.tell();
+  }
+
+  private emit(next: PanelChoices): void {
+    this.lastSent = next;
     this.dispatchEvent(new CustomEvent('choices-change', { detail: { choices: next }, bubbles: true, composed: true }));
   }
 
-  private num(field: string, raw: string, min: number, max: number, integer = false): number | undefined {
+  /** A number typed into `field`, or undefined (with the problem named next to the field). */
+  private num(field: string, label: string, raw: string, min: number, max: number, integer = false): number | undefined {
     const v = raw.trim() === '' ? Number.NaN : Number(raw);
-    const bad = !Number.isFinite(v) ? `${field}: "${raw}" is not a number` : v < min || v > max ? `${field}: must lie in [${min}, ${max}]` : integer && !Number.isInteger(v) ? `${field}: must be a whole number` : '';
-    this.problems = { ...this.problems, [field]: bad };
+    const bad = !Number.isFinite(v) ? `${label}: "${raw}" is not a number` : v < min || v > max ? `${label}: must lie in [${min}, ${max}] (got ${v})` : integer && !Number.isInteger(v) ? `${label}: must be a whole number` : '';
+    this.setProblem(field, bad);
     return bad ? undefined : v;
   }
 
-  private setNum(key: NumKey, raw: string, min: number, max: number): void {
-    const v = this.num(key, raw, min, max, key === 'draws' || key === 'seed');
-    if (v !== undefined && this.choices) this.emit({ ...this.choices, [key]: v });
+  private setNum(s: ChoiceNumberSpec, raw: string): void {
+    const v = this.num(s.key, s.label, raw, s.min, s.max, s.integer);
+    if (v !== undefined && this.choices) this.emit({ ...this.choices, [s.key]: v });
   }
 
-  private setCosmo(key: keyof CosmologyParams, raw: string, min: number, max: number): void {
-    const v = this.num(key, raw, min, max);
+  private setCosmo(key: keyof CosmologyParams, label: string, raw: string, min: number, max: number): void {
+    const v = this.num(key, label, raw, min, max);
     if (v !== undefined && this.choices) this.emit({ ...this.choices, cosmology: { ...this.choices.cosmology, [key]: v } });
   }
 
-  private setSurvey(key: 'areaArcmin2' | 'zMin' | 'zMax', raw: string): void {
+  private setImfs(imfs: string[], headline: string): void {
     if (!this.choices) return;
-    const v = this.num(key, raw, key === 'areaArcmin2' ? 1e-6 : 0, key === 'areaArcmin2' ? 148510660 : 30);
-    if (v === undefined) return;
-    const s = { ...this.choices.survey, [key]: v };
-    if (!(s.zMax > s.zMin)) {
-      this.problems = { ...this.problems, [key]: 'the redshift range needs z_min < z_max' };
-      return;
-    }
-    this.emit({ ...this.choices, survey: s });
+    this.emit({ ...this.choices, imfs: withHeadline(imfs, headline), headlineImf: headline });
   }
 
   private toggleImf(name: string, on: boolean): void {
     if (!this.choices) return;
-    const imfs = on ? [...this.choices.imfs, name] : this.choices.imfs.filter((i) => i !== name);
+    const c = this.choices;
+    const imfs = on ? [...c.imfs.filter((i) => i !== name), name] : c.imfs.filter((i) => i !== name);
     if (!imfs.length) {
-      this.problems = { ...this.problems, imfs: 'keep at least one IMF' };
+      this.setProblem('imfs', 'keep at least one IMF');
       this.requestUpdate();
       return;
     }
-    this.problems = { ...this.problems, imfs: '' };
-    this.emit({ ...this.choices, imfs });
+    this.setProblem('imfs', '');
+    const head = headlineOf(c);
+    this.setImfs(imfs, imfs.includes(head) ? head : imfs[0]);
+  }
+
+  private customProblem(spec: string): string {
+    try {
+      if (!spec.startsWith('custom:')) throw new RangeError('write custom:m0:α1:m1[:α2:m2…], e.g. custom:0.1:1.3:0.5:2.3:100');
+      parseCustomImf(spec); // the audit's own parser: the same rules and messages
+      return '';
+    } catch (e) {
+      return `custom IMF: ${(e as Error).message}`;
+    }
   }
 
   private addCustom(): void {
     const input = this.renderRoot.querySelector('#custom-imf') as HTMLInputElement;
     const spec = input.value.trim();
+    const bad = this.customProblem(spec);
+    this.setProblem('custom', bad);
+    if (bad || !this.choices) return;
+    if (!this.choices.imfs.includes(spec)) this.setImfs([...this.choices.imfs, spec], headlineOf(this.choices));
+    input.value = '';
+  }
+
+  private setSfh(spec: string, field: string): void {
     try {
-      if (!spec.startsWith('custom:')) throw new RangeError('write custom:m0:α1:m1[:α2:m2…], e.g. custom:0.1:1.3:0.5:2.3:100');
-      parseCustomImf(spec); // the audit's own parser: the same rules and messages
+      parseSfh(spec);
     } catch (e) {
-      this.problems = { ...this.problems, imfs: `custom IMF: ${(e as Error).message}` };
+      this.setProblem(field, `star-formation history: ${(e as Error).message}`);
       return;
     }
-    if (this.choices && !this.choices.imfs.includes(spec)) this.emit({ ...this.choices, imfs: [...this.choices.imfs, spec] });
-    this.problems = { ...this.problems, imfs: '' };
+    this.setProblem(field, '');
+    if (this.choices) this.emit({ ...this.choices, sfh: spec });
+  }
+
+  /** One numeric input with its label, help, hidden description and problem. */
+  private numberField(id: string, label: string, value: number, doc: string, onChange: (raw: string) => void, step = 'any') {
+    const exact = isRounded(value) ? ` (exact value ${value})` : '';
+    const text = `${label}: ${doc}${exact}`;
+    return html`<label data-help=${text}>${label}<input
+        type="number"
+        step=${step}
+        aria-describedby=${`d-${id}`}
+        aria-invalid=${this.problems[id] ? 'true' : 'false'}
+        .value=${this.problems[id] ? noChange : live(shortNumber(value))}
+        data-v=${shortNumber(value)}
+        @change=${(e: Event) => onChange((e.target as HTMLInputElement).value)}
+      />${described(`d-${id}`, text)}${this.err(id)}</label>`;
+  }
+
+  private err(k: string) {
+    return this.problems[k] ? html`<span class="err" role="alert">${this.problems[k]}</span>` : nothing;
   }
 
   render() {
     const c = this.choices;
     if (!c) return nothing;
-    const err = (k: string) => (this.problems[k] ? html`<span class="err" role="alert">${this.problems[k]}</span>` : nothing);
     const sfhKind = c.sfh.split(':')[0];
+    const head = headlineOf(c);
+    const presetName = Object.keys(PRESETS).find((k) => JSON.stringify(PRESETS[k]) === JSON.stringify(c.cosmology));
+    const imfLabel = (name: string) => IMF_PRESETS.find((p) => p.name === name)?.label ?? name;
+    const transferKnown = c.transfer.kind in TRANSFERS;
     return html`
-      <fieldset>
-        <legend>Survey</legend>
-        <label>area [arcmin²]<input type="number" step="any" .value=${String(c.survey.areaArcmin2)} @change=${(e: Event) => this.setSurvey('areaArcmin2', (e.target as HTMLInputElement).value)} />${err('areaArcmin2')}</label>
-        <label>z min<input type="number" step="0.1" .value=${String(c.survey.zMin)} @change=${(e: Event) => this.setSurvey('zMin', (e.target as HTMLInputElement).value)} />${err('zMin')}</label>
-        <label>z max<input type="number" step="0.1" .value=${String(c.survey.zMax)} @change=${(e: Event) => this.setSurvey('zMax', (e.target as HTMLInputElement).value)} />${err('zMax')}</label>
-      </fieldset>
+      ${this.help.line()}
       <fieldset>
         <legend>Cosmology and haloes</legend>
-        <label>preset<select aria-label="cosmology preset" @change=${(e: Event) => this.emit({ ...c, cosmology: PRESETS[(e.target as HTMLSelectElement).value] })}>
-          ${Object.keys(PRESETS).map((k) => html`<option value=${k} ?selected=${JSON.stringify(PRESETS[k]) === JSON.stringify(c.cosmology)}>${k}</option>`)}
-        </select></label>
-        ${PARAM_SPECS.map((s) => html`<label title=${s.doc}>${s.label}${s.unit ? ` [${s.unit}]` : ''}<input type="number" step="any" .value=${String(c.cosmology[s.key])} @change=${(e: Event) => this.setCosmo(s.key, (e.target as HTMLInputElement).value, s.min, s.max)} />${err(s.key)}</label>`)}
-        <label>mass function<select aria-label="mass function" @change=${(e: Event) => this.emit({ ...c, massFunction: (e.target as HTMLSelectElement).value })}>
-          ${Object.values(MASS_FUNCTIONS).map((m) => html`<option value=${m.name} ?selected=${m.name === c.massFunction} title=${m.source}>${m.label}</option>`)}
-        </select></label>
-        <label>transfer function<select aria-label="transfer function" @change=${(e: Event) => this.emit({ ...c, transfer: { kind: (e.target as HTMLSelectElement).value as 'eh98' } })}>
-          ${['eh98', 'eh98-nowiggle', 'bbks'].map((t) => html`<option value=${t} ?selected=${t === c.transfer.kind}>${t}</option>`)}
-        </select></label>
-      </fieldset>
-      <fieldset class="imfs">
-        <legend>Stellar populations</legend>
-        ${IMF_PRESETS.map((p) => html`<label title=${p.source}><input type="checkbox" .checked=${c.imfs.includes(p.name)} @change=${(e: Event) => this.toggleImf(p.name, (e.target as HTMLInputElement).checked)} />${p.label}${p.topHeavy ? ' (top-heavy)' : ''}</label>`)}
-        ${c.imfs.filter((i) => i.startsWith('custom:')).map((i) => html`<label><input type="checkbox" checked @change=${(e: Event) => this.toggleImf(i, (e.target as HTMLInputElement).checked)} />${i}</label>`)}
-        <div>
-          <label>custom IMF<input id="custom-imf" type="text" placeholder="custom:0.1:1.3:0.5:2.3:100" /></label>
-          <button type="button" @click=${this.addCustom}>Add IMF</button>
-        </div>
-        ${err('imfs')}
-        <div>
-          <label>star-formation history<select aria-label="star-formation history" @change=${(e: Event) => {
+        <div class="fields">
+          <label data-help="preset: a published parameter set; any parameter can then be changed">preset<select aria-label="cosmology preset" @change=${(e: Event) => {
             const k = (e.target as HTMLSelectElement).value;
-            this.emit({ ...c, sfh: k.startsWith('exp') ? `${k}:100` : k });
+            if (PRESETS[k]) this.emit({ ...c, cosmology: PRESETS[k] });
           }}>
-            ${['constant', 'burst', 'exp-declining', 'exp-rising'].map((k) => html`<option value=${k} ?selected=${k === sfhKind}>${k}</option>`)}
+            ${presetName ? nothing : html`<option value="" selected>(own values)</option>`}
+            ${Object.keys(PRESETS).map((k) => html`<option value=${k} ?selected=${k === presetName}>${k}</option>`)}
           </select></label>
-          ${sfhKind.startsWith('exp')
-            ? html`<label>τ [Myr]<input type="number" step="any" .value=${c.sfh.split(':')[1] ?? '100'} @change=${(e: Event) => {
-                const v = this.num('tau', (e.target as HTMLInputElement).value, 1, 1e5);
-                if (v !== undefined) this.emit({ ...c, sfh: `${sfhKind}:${v}` });
-              }} />${err('tau')}</label>`
+          ${PARAM_SPECS.map((s) =>
+            this.numberField(s.key, `${s.label}${s.unit ? ` [${s.unit}]` : ''}`, c.cosmology[s.key], `${s.doc}; allowed ${s.min} to ${s.max}`, (raw) => this.setCosmo(s.key, s.label, raw, s.min, s.max)),
+          )}
+          <label data-help="mass function: the halo multiplicity function that counts haloes">mass function<select aria-label="mass function" @change=${(e: Event) => this.emit({ ...c, massFunction: (e.target as HTMLSelectElement).value })}>
+            ${Object.values(MASS_FUNCTIONS).map((m) => html`<option value=${m.name} ?selected=${m.name === c.massFunction}>${m.label}</option>`)}
+          </select></label>
+          <label data-help="transfer function: the shape of the linear power spectrum">transfer function<select aria-label="transfer function" @change=${(e: Event) => {
+            const k = (e.target as HTMLSelectElement).value;
+            if (k in TRANSFERS) this.emit({ ...c, transfer: { kind: k as 'eh98' } });
+          }}>
+            ${transferKnown ? nothing : html`<option value="" selected>${c.transfer.kind} (from the record)</option>`}
+            ${Object.entries(TRANSFERS).map(([t, label]) => html`<option value=${t} ?selected=${t === c.transfer.kind}>${t} (${label})</option>`)}
+          </select></label>
+          <label data-help="collapse threshold δc: a constant, or 1.686[1 + 0.0123 log10 Ωm(z)] (Kitayama & Suto 1996)">collapse threshold δc<select aria-label="collapse threshold" @change=${(e: Event) => {
+            const k = (e.target as HTMLSelectElement).value;
+            this.emit({ ...c, deltaC: k === 'omega-m' ? { kind: 'omega-m' } : { kind: 'constant', value: 1.686 } });
+          }}>
+            <option value="constant" ?selected=${c.deltaC.kind === 'constant'}>constant</option>
+            <option value="omega-m" ?selected=${c.deltaC.kind === 'omega-m'}>with Ωm(z)</option>
+          </select></label>
+          ${c.deltaC.kind === 'constant'
+            ? this.numberField('deltaC', 'δc value', c.deltaC.value, 'the constant collapse threshold; allowed 1 to 2.5', (raw) => {
+                const v = this.num('deltaC', 'δc', raw, 1, 2.5);
+                if (v !== undefined) this.emit({ ...c, deltaC: { kind: 'constant', value: v } });
+              })
             : nothing}
         </div>
       </fieldset>
+      <fieldset class="imfs">
+        <legend>Stellar populations</legend>
+        <div class="fields checks">
+          ${IMF_PRESETS.map((p) => html`<label data-help=${`${p.label}: ${p.source}`}><input type="checkbox" .checked=${live(c.imfs.includes(p.name))} @change=${(e: Event) => this.toggleImf(p.name, (e.target as HTMLInputElement).checked)} />${p.label}${p.topHeavy && !/top-heavy/i.test(p.label) ? ' (top-heavy)' : ''}</label>`)}
+          ${c.imfs.filter((i) => i.startsWith('custom:')).map((i) => html`<label data-help=${`your own IMF: ${i}`}><input type="checkbox" checked @change=${(e: Event) => this.toggleImf(i, (e.target as HTMLInputElement).checked)} />${i}</label>`)}
+        </div>
+        ${this.err('imfs')}
+        <div class="custom">
+          <label data-help="custom IMF: power laws dN/dm ∝ m^−α between the listed masses in Msun, up to 300 Msun; Enter adds it">custom IMF<input
+            id="custom-imf"
+            class="wide"
+            type="text"
+            placeholder="custom:0.1:1.3:0.5:2.3:100"
+            aria-invalid=${this.problems.custom ? 'true' : 'false'}
+            @keydown=${(e: KeyboardEvent) => {
+              if (e.key === 'Enter') {
+                e.preventDefault();
+                this.addCustom();
+              }
+            }}
+            @input=${(e: Event) => {
+              // A message about the custom IMF goes as soon as the text is right (or empty).
+              if (!this.problems.custom) return;
+              const spec = (e.target as HTMLInputElement).value.trim();
+              if (!spec || !this.customProblem(spec)) this.setProblem('custom', '');
+            }}
+          /></label>
+          <button type="button" @click=${this.addCustom}>Add IMF</button>
+        </div>
+        ${this.err('custom')}
+        <div class="fields">
+          <label data-help="headline IMF: the verdict of a row without its own imf_ref is the one under this IMF; it is always compared">headline IMF<select aria-label="headline IMF" @change=${(e: Event) => this.setImfs([...c.imfs], (e.target as HTMLSelectElement).value)}>
+            ${c.imfs.map((i) => html`<option value=${i} ?selected=${i === head}>${imfLabel(i)}</option>`)}
+          </select></label>
+          <label data-help="star-formation history: constant, a single burst, exponentially declining or rising (τ in Myr), or piecewise SFR at lookback ages">star-formation history<select aria-label="star-formation history" @change=${(e: Event) => {
+            const k = (e.target as HTMLSelectElement).value;
+            this.setSfh(k.startsWith('exp') ? `${k}:100` : k === 'piecewise' ? 'piecewise:0:1:100:1' : k, 'sfh');
+          }}>
+            ${SFHS.map((k) => html`<option value=${k} ?selected=${k === sfhKind}>${k}</option>`)}
+          </select></label>
+          ${sfhKind.startsWith('exp')
+            ? this.numberField('tau', 'τ [Myr]', Number(c.sfh.split(':')[1] ?? '100'), 'e-folding time of the star-formation rate; allowed 1 to 100000 Myr', (raw) => {
+                const v = this.num('tau', 'τ', raw, 1, 1e5);
+                if (v !== undefined) this.setSfh(`${sfhKind}:${v}`, 'tau');
+              })
+            : nothing}
+          ${sfhKind === 'piecewise'
+            ? html`<label data-help="piecewise history: piecewise:a0:s0:a1:s1… gives the SFR s at lookback ages a in Myr, linear between points">history points<input
+                class="wide"
+                type="text"
+                aria-invalid=${this.problems.sfh ? 'true' : 'false'}
+                .value=${live(c.sfh)}
+                @change=${(e: Event) => this.setSfh((e.target as HTMLInputElement).value.trim(), 'sfh')}
+              /></label>`
+            : nothing}
+        </div>
+        ${this.err('sfh')}
+      </fieldset>
       <fieldset>
         <legend>Audit</legend>
-        ${NUM_FIELDS.map((f) => html`<label title=${f.help}>${f.label}<input type="number" step=${f.step} .value=${String(c[f.key])} @change=${(e: Event) => this.setNum(f.key, (e.target as HTMLInputElement).value, f.min, f.max)} />${err(f.key)}</label>`)}
+        <div class="fields">
+          ${AUDIT_NUMBER_SPECS.map((s) =>
+            this.numberField(s.key, `${s.label}${s.unit ? ` [${s.unit}]` : ''}`, c[s.key], `${s.doc}; allowed ${s.min} to ${s.max}${s.integer ? ', whole numbers' : ''}`, (raw) => this.setNum(s, raw), s.step),
+          )}
+        </div>
       </fieldset>
     `;
   }

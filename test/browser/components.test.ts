@@ -1,4 +1,5 @@
 import { expect } from 'chai';
+import { sendKeys } from '@web/test-runner-commands';
 import '../../src/ui/sample-editor.js';
 import '../../src/ui/results-table.js';
 import '../../src/ui/audit-chart.js';
@@ -70,7 +71,7 @@ describe('<sample-editor> paste and drop', () => {
     const ta = el.shadowRoot!.querySelector('textarea') as HTMLTextAreaElement;
     ta.value = 'id\tz\tmuv\nP-1\t9.5\t-21\nP-2\t8.1\t-20';
     const got = new Promise<string>((ok) => el.addEventListener('sample-change', (e) => ok((e as CustomEvent).detail.csv), { once: true }));
-    (Array.from(el.shadowRoot!.querySelectorAll('button')).find((b) => b.textContent === 'Use pasted rows') as HTMLButtonElement).click();
+    (Array.from(el.shadowRoot!.querySelectorAll('button')).find((b) => b.textContent === 'Add pasted rows') as HTMLButtonElement).click();
     const csv = await got;
     expect(csv).to.contain('P-1,9.5,-21');
     expect(csv).to.contain('P-2,8.1,-20');
@@ -85,6 +86,61 @@ describe('<sample-editor> paste and drop', () => {
     dt.items.add(new File(['id,z,muv\nDROP-1,7.5,-19\n'], 'drop.csv', { type: 'text/csv' }));
     el.shadowRoot!.querySelector('.scroll')!.dispatchEvent(new DragEvent('drop', { dataTransfer: dt, bubbles: true, cancelable: true }));
     expect(await got).to.contain('DROP-1,7.5,-19');
+    el.remove();
+  });
+});
+
+describe('<sample-editor> with 10⁴ rows (windowed)', () => {
+  const focused = (el: SampleEditor) => el.shadowRoot!.activeElement?.getAttribute('aria-label');
+  const ctrl = async (key: string) => {
+    await sendKeys({ down: 'Control' });
+    await sendKeys({ press: key });
+    await sendKeys({ up: 'Control' });
+  };
+  const settled = async (el: SampleEditor) => {
+    for (let i = 0; i < 4; i++) await el.updateComplete; // measuring the rows may ask for one more pass
+  };
+
+  it('draws only the rows in view; scrolled to the end it draws the last row, which can be edited; the keyboard reaches both ends', async () => {
+    const rows = Array.from({ length: 10000 }, (_, i) => `W-${i + 1},${(7 + (i % 40) / 10).toFixed(1)},-20`);
+    const el = mount<SampleEditor>('sample-editor');
+    el.csv = `id,z,muv\n${rows.join('\n')}\n`;
+    await settled(el);
+    expect(el.drawnRows).to.be.greaterThan(5);
+    expect(el.drawnRows).to.be.lessThan(120);
+    const box = el.shadowRoot!.querySelector('.scroll') as HTMLElement;
+    box.scrollTop = box.scrollHeight;
+    box.dispatchEvent(new Event('scroll'));
+    await settled(el);
+    expect(el.drawnRows).to.be.lessThan(120);
+    const last = el.shadowRoot!.querySelector('input[aria-label="row 10000, z"]') as HTMLInputElement;
+    expect(last, 'the last row is drawn').to.not.equal(null);
+    expect(el.shadowRoot!.querySelector('input[aria-label="row 1, z"]'), 'the first row is not').to.equal(null);
+    const got = new Promise<string>((ok) => el.addEventListener('sample-change', (e) => ok((e as CustomEvent).detail.csv), { once: true }));
+    last.value = '12.5';
+    last.dispatchEvent(new Event('change'));
+    const lines = (await got).trim().split('\n');
+    expect(lines).to.have.length(10001);
+    expect(lines[10000]).to.equal('W-10000,12.5,-20');
+    expect(lines[9999]).to.equal(`W-9999,${(7 + (9998 % 40) / 10).toFixed(1)},-20`);
+    // Keyboard: Ctrl+Home to the first row, Page Down by a page, Ctrl+End back to the last row.
+    await settled(el);
+    (el.shadowRoot!.querySelector('input[aria-label="row 10000, z"]') as HTMLInputElement).focus();
+    await ctrl('Home');
+    await settled(el);
+    expect(focused(el)).to.equal('row 1, z');
+    await sendKeys({ press: 'PageDown' });
+    await settled(el);
+    const after = Number(/^row (\d+),/.exec(focused(el) ?? '')?.[1]);
+    expect(after).to.be.greaterThan(2);
+    await sendKeys({ press: 'ArrowDown' });
+    await settled(el);
+    expect(focused(el)).to.equal(`row ${after + 1}, z`);
+    await ctrl('End');
+    await settled(el);
+    expect(focused(el)).to.equal('row 10000, z');
+    expect((el.shadowRoot!.activeElement as HTMLInputElement).value).to.equal('12.5');
+    expect(el.drawnRows).to.be.lessThan(120);
     el.remove();
   });
 });
