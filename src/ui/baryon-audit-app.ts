@@ -1,6 +1,6 @@
 import { LitElement, css, html, nothing } from 'lit';
 import { customElement, state } from 'lit/decorators.js';
-import type { AuditChoices } from '../core/audit/choices.js';
+import { normalizeChoices, type AuditChoices } from '../core/audit/choices.js';
 import type { RowProblem } from '../core/audit/sample.js';
 import { DEMO_SAMPLE_CSV, DEMO_SURVEY } from '../demo/demo-sample.js';
 import { decodeShare, encodeShare, loadSaved, makeRecord, recordFromJson, save } from './app-state.js';
@@ -28,7 +28,8 @@ interface Bench {
 /** Undo reaches 200 edits back, within about 40 MB of sample text. */
 const HISTORY_LIMITS: HistoryLimits<Bench> = { maxEntries: 200, maxSize: 2e7, sizeOf: (b) => b.csv.length + 2000 };
 const sameBench = (a: Bench, b: Bench): boolean => a.csv === b.csv && a.choices === b.choices;
-const choicesKey = (c: AuditChoices): string => JSON.stringify(c);
+/** Choices compared as the audit sees them (normalised: the headline IMF set and compared), keys sorted. */
+const choicesKey = (c: AuditChoices): string => JSON.stringify(normalizeChoices(c), (_k, v: unknown) => (v && typeof v === 'object' && !Array.isArray(v) ? Object.fromEntries(Object.entries(v).sort(([a], [b]) => (a < b ? -1 : 1))) : v));
 
 interface Invalid {
   readonly field: string;
