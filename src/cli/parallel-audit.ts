@@ -1,10 +1,12 @@
 import { availableParallelism } from 'node:os';
 import { Worker, isMainThread, parentPort, workerData } from 'node:worker_threads';
 import { auditRow, finishAudit, prepareAudit, runAudit, type AuditChoices, type AuditResult, type GalaxyRow } from '../core/audit/index.js';
+import { dealRows, threadsFor } from '../core/audit/row-dealing.js';
 
 /**
- * The audit on several cores: rows are dealt round-robin to the main thread and N − 1 worker threads
- * (each builds its own halo model and tables); the main thread then finishes the sample level.
+ * The audit on several cores: rows are dealt (core/audit/row-dealing.ts, shared with the page's pool) to
+ * the main thread and N − 1 worker threads (each builds its own halo model and tables); the main thread
+ * then finishes the sample level.
  * Every row draws from its own seeded stream (seed, row), so the result is identical to a serial run.
  */
 interface Job {
@@ -25,7 +27,7 @@ if (!isMainThread && (workerData as Job | undefined)?.kind === 'baryon-audit-row
 }
 
 export function defaultJobs(rows: number): number {
-  return rows < 24 ? 1 : Math.max(1, Math.min(availableParallelism(), Math.ceil(rows / 12)));
+  return threadsFor(rows, availableParallelism());
 }
 
 /** The audit on `jobs` threads (one: the plain runAudit). */
@@ -33,9 +35,7 @@ export async function runAuditParallel(csv: string, choices: AuditChoices, jobs:
   if (jobs <= 1) return runAudit(csv, choices);
   const prepMain = prepareAudit(csv, choices);
   const n = prepMain.parsed.rows.length;
-  const k = Math.max(1, Math.min(jobs, n));
-  const parts: number[][] = Array.from({ length: k }, () => []);
-  for (let i = 0; i < n; i++) parts[i % k].push(i);
+  const parts = dealRows(n, jobs);
   // The main thread takes the first share itself (no extra thread competing for the cores).
   const [mine, ...theirs] = parts;
   const pending = Promise.all(
