@@ -145,20 +145,32 @@ export class AuditController {
     return Promise.race([f(slot.api).finally(heard), slot.lost]);
   }
 
-  /** Checks, while any worker owes an answer, that every such worker has been heard from recently. */
+  /**
+   * Checks, while any worker owes an answer, that every such worker has been heard from recently.
+   * Time in which the page's own main thread was blocked (a late check) is not counted as silence:
+   * the workers' messages were waiting behind it.
+   */
   private watch(): void {
     if (this.watchdog !== undefined) return;
+    const every = Math.max(50, Math.min(1000, this.livenessMs / 4));
+    let lastCheck = performance.now();
     this.watchdog = setInterval(() => {
+      const now = performance.now();
+      const stalled = now - lastCheck - every;
+      lastCheck = now;
       const owing = this.slots.filter((s) => s.pending > 0);
       if (!owing.length) {
         clearInterval(this.watchdog);
         this.watchdog = undefined;
         return;
       }
-      const now = performance.now();
+      if (stalled > every) {
+        for (const s of owing) s.lastHeard += stalled;
+        return; // judge at the next check, once the waiting messages have been read
+      }
       const silent = owing.find((s) => now - s.lastHeard > this.livenessMs);
       if (silent) this.crashed(`${silent.role} stopped answering (nothing heard for ${((now - silent.lastHeard) / 1000).toFixed(1)} s)`);
-    }, Math.max(50, Math.min(1000, this.livenessMs / 4)));
+    }, every);
   }
 
   private set(s: Partial<ControllerState>): void {
