@@ -2,6 +2,9 @@
  * The audit worker: runs the numeric core off the main thread, exposed through comlink. One request
  * at a time; between galaxies it yields to the event loop so that cancel() (or a newer request)
  * stops a run early. Figure columns come back as typed arrays whose buffers are transferred.
+ * Large results come back in pages of GALAXY_PAGE rows (galaxyPage), so that no single message takes
+ * the page's main thread long to read; a pool member's rows go to the leader as one JSON string, which
+ * the main thread passes on without reading.
  */
 import * as Comlink from 'comlink';
 import {
@@ -18,6 +21,7 @@ import {
   type GalaxyPoints,
   type GalaxyRow,
 } from '../src/core/audit/index.js';
+import { dealRows } from '../src/core/audit/row-dealing.js';
 import { makeHaloModel, MASS_FUNCTIONS } from '../src/core/halos/index.js';
 import type { CosmologyParams } from '../src/core/cosmology/index.js';
 import type { TransferSpec } from '../src/core/power/index.js';
@@ -38,7 +42,15 @@ export interface AuditResponse {
   readonly markdown?: string;
   readonly csv?: string;
   readonly elapsedMs: number;
+  /**
+   * Number of galaxies of the result. When it exceeds GALAXY_PAGE, `result.galaxies` comes back empty
+   * and the rows are fetched with galaxyPage(id, from, to).
+   */
+  readonly galaxyCount?: number;
 }
+
+/** Rows per message when a result is handed over in pages (~20–40 ms to read on the main thread). */
+export const GALAXY_PAGE = 500;
 
 export interface ExplorerRequest {
   readonly cosmology: CosmologyParams;
@@ -87,12 +99,20 @@ function curvesFor(req: AuditRequest, prep: ReturnType<typeof prepareAudit>): Ce
   return Object.fromEntries(Object.entries(v).map(([k, a]) => [k, (a as Float64Array).slice()])) as unknown as CeilingCurves;
 }
 
+/** The last large result, kept until its pages have been fetched (or a newer one replaces it). */
+let paged: { id: number; galaxies: GalaxyRow[] } | undefined;
+/** A pool leader's own rows of the request in flight, kept here until finish(). */
+let kept: { id: number; rows: [number, GalaxyRow][] } | undefined;
+
 function respond(req: AuditRequest, prep: ReturnType<typeof prepareAudit>, galaxies: GalaxyRow[], elapsedMs: number): AuditResponse {
   const result = finishAudit(prep, galaxies);
   const curves = curvesFor(req, prep);
   const imfs = [...new Set(result.galaxies.flatMap((g) => (g.imf ? Object.keys(g.imf) : [])))];
   const points = galaxyPoints(result, imfs);
-  const resp: AuditResponse = { id: req.id, status: 'done', result, curves, points, markdown: auditMarkdown(result), csv: auditCsv(result), elapsedMs };
+  const n = result.galaxies.length;
+  paged = n > GALAXY_PAGE ? { id: req.id, galaxies: result.galaxies } : undefined;
+  const shown = paged ? { ...result, galaxies: [] } : result;
+  const resp: AuditResponse = { id: req.id, status: 'done', result: shown, curves, points, markdown: auditMarkdown(result), csv: auditCsv(result), elapsedMs, galaxyCount: n };
   return Comlink.transfer(resp, [...buffers(curves as unknown as Record<string, unknown>), ...points.flatMap((p) => buffers(p as unknown as Record<string, unknown>))]);
 }
 const tick = (): Promise<void> => new Promise((r) => setTimeout(r, 0));
@@ -136,17 +156,42 @@ export const auditApi = {
     if (rows === 'cancelled') return { id: req.id, status: 'cancelled', elapsedMs: performance.now() - t0 };
     return respond(req, prep, rows.map(([, g]) => g), performance.now() - t0);
   },
-  /** Number of data rows the sample parses to (for dealing rows over the pool). */
-  rowCount(csv: string, choices: AuditChoices): number {
-    return prepareAudit(csv, choices).parsed.rows.length;
+  /**
+   * Pool member `part.index` of `part.of`: parses the sample and audits its own share of the rows
+   * (core/audit/row-dealing.ts; every row has its own seeded stream), so every member starts at once
+   * without a round trip through the page. Progress is (rows done, rows of the sample). The leader
+   * (`keep`) keeps its rows for finish() and answers their number; the others answer their rows as
+   * JSON text of [index, row] pairs, which the main thread hands to the leader unread.
+   */
+  async runRows(req: AuditRequest, part: { index: number; of: number }, onProgress?: (done: number, total: number) => void, keep = false): Promise<string | number | 'cancelled'> {
+    const prep = prepareAudit(req.csv, req.choices);
+    const n = prep.parsed.rows.length;
+    const indices = dealRows(n, part.of)[part.index] ?? [];
+    onProgress?.(0, n);
+    const rows = await auditIndices(req, prep, indices, onProgress && ((d) => onProgress(d, n)));
+    if (rows === 'cancelled') return rows;
+    if (!keep) return JSON.stringify(rows);
+    kept = { id: req.id, rows };
+    return rows.length;
   },
-  /** Pool member: audits only the rows at `indices` (each row has its own seeded stream). */
-  runRows(req: AuditRequest, indices: number[], onProgress?: (done: number) => void): Promise<[number, GalaxyRow][] | 'cancelled'> {
-    return auditIndices(req, prepareAudit(req.csv, req.choices), indices, onProgress);
+  /** Pool leader: the sample level, figures and reports from its own rows and the other members' JSON parts. */
+  finish(req: AuditRequest, parts: string[], elapsedMs: number): AuditResponse {
+    const prep = prepareAudit(req.csv, req.choices);
+    const galaxies: GalaxyRow[] = new Array(prep.parsed.rows.length);
+    const own = kept?.id === req.id ? kept.rows : [];
+    kept = undefined;
+    for (const [i, g] of own) galaxies[i] = g;
+    for (const part of parts) for (const [i, g] of JSON.parse(part) as [number, GalaxyRow][]) galaxies[i] = g;
+    const missing = galaxies.findIndex((g) => g === undefined); // findIndex visits holes too
+    if (missing >= 0) throw new Error(`the pool lost row ${missing + 1} of the sample`);
+    return respond(req, prep, galaxies, elapsedMs);
   },
-  /** Pool leader: the sample level, figures and reports from every row's result. */
-  finish(req: AuditRequest, galaxies: GalaxyRow[], elapsedMs: number): AuditResponse {
-    return respond(req, prepareAudit(req.csv, req.choices), galaxies, elapsedMs);
+  /** Rows from..to (exclusive) of the large result `id` (see AuditResponse.galaxyCount). */
+  galaxyPage(id: number, from: number, to: number): GalaxyRow[] {
+    if (paged?.id !== id) throw new Error(`result ${id} is no longer held by the worker`);
+    const page = paged.galaxies.slice(from, to);
+    if (to >= paged.galaxies.length) paged = undefined;
+    return page;
   },
   cancel(): void {
     current = -1;
@@ -165,6 +210,10 @@ export const auditApi = {
   /** For the recovery tests: a request that throws inside the worker. */
   fail(message: string): never {
     throw new Error(message);
+  },
+  /** For the recovery tests: the worker stops at once, with no error event and no answer to anything. */
+  stopSilently(): void {
+    self.close();
   },
 };
 

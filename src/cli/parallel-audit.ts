@@ -1,11 +1,13 @@
 import { availableParallelism } from 'node:os';
 import { Worker, isMainThread, parentPort, workerData } from 'node:worker_threads';
 import { auditRow, prepareAudit, type AuditChoices, type GalaxyRow, type PreparedAudit } from '../core/audit/index.js';
+import { threadsFor } from '../core/audit/row-dealing.js';
 
 /**
  * The audit's rows, in file order, from the main thread (one job) or from worker threads (each
  * builds its own halo model and tables). Rows go out in batches of BATCH, batch b to thread
- * b mod k; a thread may run at most CREDITS batches ahead of what has been written, so memory stays
+ * b mod k (batches rather than single rows, so that the output can stream in file order; the thread
+ * count and its threshold come from core/audit/row-dealing.ts, shared with the page's pool); a thread may run at most CREDITS batches ahead of what has been written, so memory stays
  * flat in the number of rows. Every galaxy draws from its own stream seeded by (seed, id), so the
  * numbers are identical to a serial run.
  */
@@ -51,7 +53,7 @@ if (!isMainThread && (workerData as Job | undefined)?.kind === 'baryon-audit-row
 export const maxJobs = (): number => Math.max(1, availableParallelism());
 
 export function defaultJobs(rows: number): number {
-  return rows < 24 ? 1 : Math.max(1, Math.min(maxJobs(), Math.ceil(rows / 12)));
+  return threadsFor(rows, maxJobs());
 }
 
 /** Every row's result in file order; `jobs` threads (one: this thread, no workers). */

@@ -71,6 +71,8 @@ export class BaryonAuditApp extends LitElement {
   private get choices(): PanelChoices {
     return this.hist.present.choices;
   }
+  /** The rows' problems of the response on show (one array per response, so the editor is not re-rendered by progress). */
+  private problemCache: { result?: object; problems: RowProblem[] } = { problems: [] };
 
   static styles = css`
     :host { display: block; font-family: system-ui, sans-serif; color: #111; }
@@ -110,6 +112,9 @@ export class BaryonAuditApp extends LitElement {
     .stale-badge { position: sticky; top: 0; z-index: 2; margin: 0.4rem 0; padding: 0.35rem 0.6rem; background: #fde2d6; border: 2px solid #D55E00; font-weight: 600; }
     .stale-badge button { margin-left: 0.5rem; font-weight: normal; }
     .explorer-z input { width: 5rem; }
+    .rate { color: #444; font-variant-numeric: tabular-nums; }
+    /* Own paint layers for the long tables: a progress update on the status line then repaints only the line. */
+    sample-editor, results-table { contain: paint; }
   `;
 
   connectedCallback(): void {
@@ -232,12 +237,15 @@ export class BaryonAuditApp extends LitElement {
     else this.redo();
   };
 
+  /** Runs the audit after `delay` ms of quiet; with no delay at once, so the workers start before the page redraws. */
   private schedule(delay = 0): void {
     clearTimeout(this.timer);
-    this.timer = setTimeout(() => {
+    const go = (): void => {
       save(localStorage, makeRecord(this.csv, this.choices));
       void this.controller?.run(this.csv, this.choices);
-    }, delay);
+    };
+    if (delay > 0) this.timer = setTimeout(go, delay);
+    else go();
   }
 
   private onController(s: ControllerState): void {
@@ -336,7 +344,11 @@ export class BaryonAuditApp extends LitElement {
   render() {
     const resp = this.ctl.response;
     const result = resp?.result;
-    const problems: RowProblem[] = result ? result.galaxies.flatMap((g) => g.errors) : [];
+    if (this.problemCache.result !== result) {
+      const problems = result ? result.galaxies.flatMap((g) => g.errors) : [];
+      this.problemCache = { result, problems: problems.length || this.problemCache.problems.length ? problems : this.problemCache.problems };
+    }
+    const problems = this.problemCache.problems;
     let figs: ChartModel[] = [];
     if (result && resp?.curves && resp.points) {
       const c = this.figCache;
@@ -386,7 +398,9 @@ export class BaryonAuditApp extends LitElement {
           ${this.notice ? html`<p class="notice" role="status">${this.notice} <button type="button" @click=${() => (this.notice = '')}>dismiss</button></p>` : nothing}
           <div class="status" role="status" aria-live="polite">
             ${this.ctl.status === 'running'
-              ? html`<span>Auditing… ${this.ctl.done}/${this.ctl.total || '?'}</span><progress max=${this.ctl.total || 1} value=${this.ctl.done}></progress><button type="button" @click=${() => this.controller?.cancel()}>Cancel</button>`
+              ? html`<span>Auditing… ${this.ctl.done}/${this.ctl.total || '?'} rows</span><progress max=${this.ctl.total || 1} value=${this.ctl.done}></progress>${this.ctl.rowsPerSecond
+                    ? html`<span class="rate">${this.ctl.rowsPerSecond.toFixed(0)} rows/s, about ${Math.ceil(this.ctl.secondsLeft ?? 0)} s left</span>`
+                    : nothing}<button type="button" @click=${() => this.controller?.cancel()}>Cancel</button>`
               : this.ctl.status === 'done' && resp
                 ? html`<span>Audited ${result!.sample.accepted} galaxies (${result!.sample.rejected} rejected) in ${(resp.elapsedMs / 1000).toFixed(2)} s.</span>`
                 : nothing}
