@@ -79,7 +79,11 @@ function hostPrior(e: EddingtonInputs, eps: number): (x: number) => number {
 
 /** Local slope α of dn/dlnM ∝ M^−α at M (centred difference over ±0.041 dex). */
 function localSlope(halo: HaloModel, m: number, z: number): number {
-  return -Math.log(halo.dndlnM(m * 1.1, z) / halo.dndlnM(m / 1.1, z)) / Math.log(1.21);
+  const a = -Math.log(halo.dndlnM(m * 1.1, z) / halo.dndlnM(m / 1.1, z)) / Math.log(1.21);
+  if (!Number.isFinite(a)) {
+    throw new RangeError(`the host halo M*/(f_b ε) ≈ ${m.toExponential(1)} Msun lies where the ${halo.model.label} mass function vanishes at z = ${z}: ΛCDM has no such haloes, so the mass cannot be audited or debiased`);
+  }
+  return a;
 }
 
 /** The statistics of one IMF over the shared draws (everything in log10: quantiles commute with 10^x). */
