@@ -4,7 +4,7 @@
  * Run with `npm run bench`. Nothing here is a test: no thresholds fail the run.
  */
 import os, { tmpdir } from 'node:os';
-import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { spawnSync } from 'node:child_process';
 import { PLANCK18, makeBackground } from '../../src/core/cosmology/index.js';
@@ -12,6 +12,8 @@ import { makeHaloModel } from '../../src/core/halos/index.js';
 import { makeLinearPower, makeSigmaTable } from '../../src/core/power/index.js';
 import { estimateMass, makeMassToLightTable, makePopulationCache, parseSfh } from '../../src/core/stars/index.js';
 import { parseSample, runAudit, type AuditChoices } from '../../src/core/audit/index.js';
+import { benchChoices, sample } from './audit-sample.js';
+import { writeNumpyInputs } from './numpy-inputs.js';
 
 function median(xs: number[]): number {
   const s = [...xs].sort((a, b) => a - b);
@@ -99,19 +101,7 @@ report('one mass estimate from the tables (M/L lookup)', tEst / nEst, '≤ 5 µs
 report('one full mass estimate (61 ages, median)', time(() => estimateMass(cache, 'chabrier', sfhs[1], { kind: 'absolute-uv', muv: -21 }, { kind: 'none' }, 10, bg), 50), '—');
 
 // 5. the audit: galaxies × draws × 4 IMFs
-const choices: AuditChoices = {
-  cosmology: PLANCK18, massFunction: 'sheth-tormen', transfer: { kind: 'eh98' }, deltaC: { kind: 'constant', value: 1.686 },
-  imfs: ['salpeter', 'chabrier', 'kroupa', 'top-heavy-flat'], sfh: 'constant', metallicity: 0.02, epsRef: 0.3, quantile: 0.997,
-  draws: 20000, seed: 1, sliceDz: 1, formationZ: 30, survey: { name: 'bench', areaArcmin2: 40, zMin: 7, zMax: 11 }, surveys: [], zBins: [],
-};
-const sample = (n: number): string => {
-  const lines = ['id,z,z_lo,z_hi,muv,mag_err,beta'];
-  for (let i = 0; i < n; i++) {
-    const z = 7.2 + (3.6 * i) / n;
-    lines.push(`B-${i},${z.toFixed(3)},${(z - 0.2).toFixed(3)},${(z + 0.25).toFixed(3)},${(-19 - (i % 30) / 10).toFixed(2)},0.1,-2.0`);
-  }
-  return lines.join('\n');
-};
+const choices: AuditChoices = benchChoices;
 const aSizes = [10, 40, 160];
 const aTimes = aSizes.map((n) => time(() => runAudit(sample(n), choices), 1));
 aSizes.forEach((n, i) => report(`audit (in process): ${n} galaxies × 20000 draws × 4 IMFs`, aTimes[i], '—'));
@@ -128,6 +118,54 @@ console.log(`   cost ∝ N^${slope(aSizes, aTimes).toFixed(2)} (set-up included)
   rmSync(dir, { recursive: true, force: true });
   if (r.status !== 0) console.log(`   CLI run failed: ${r.stderr}`);
   report('audit CLI: 1000 galaxies × 20000 draws × 4 IMFs (wall time, --jobs = cores)', wall, '≤ 10 s');
+}
+
+// 5b. side by side with a vectorised numpy script doing the same per-draw work (numpy_audit.py), one
+// thread each, alternated and repeated: the machine is shared, so only the ratio of neighbours counts.
+{
+  const nRows = Number(process.env.BENCH_NUMPY_ROWS ?? 1000);
+  const reps = Number(process.env.BENCH_NUMPY_REPS ?? 2);
+  const dir = mkdtempSync(join(tmpdir(), 'ba-numpy-'));
+  const inputs = join(dir, 'inputs.json');
+  const outFile = join(dir, 'numpy.json');
+  writeNumpyInputs(nRows, benchChoices.draws, inputs);
+  const csv = sample(nRows);
+  const env = { ...process.env, OPENBLAS_NUM_THREADS: '1', OMP_NUM_THREADS: '1', MKL_NUM_THREADS: '1' };
+  const ratios: number[] = [];
+  let tool: ReturnType<typeof runAudit> | undefined;
+  let np: { wall_s: number; numpy: string; galaxies: { imf: Record<string, Record<string, number>> }[] } | undefined;
+  for (let r = 0; r < reps; r++) {
+    const py = spawnSync('/usr/bin/python3', ['test/bench/numpy_audit.py', inputs, outFile], { encoding: 'utf8', env });
+    if (py.status !== 0) {
+      console.log(`   numpy script failed (python3-numpy installed?): ${py.stderr.slice(0, 300)}`);
+      break;
+    }
+    np = JSON.parse(readFileSync(outFile, 'utf8'));
+    const t0 = performance.now();
+    tool = runAudit(csv, benchChoices);
+    const ms = performance.now() - t0;
+    ratios.push((np!.wall_s * 1000) / ms);
+    console.log(`   run ${r + 1}: tool (fixed draws, one thread) ${(ms / 1000).toFixed(2)} s, numpy ${np!.numpy} ${np!.wall_s.toFixed(2)} s → numpy/tool ${ratios[r].toFixed(2)}×`);
+  }
+  rmSync(dir, { recursive: true, force: true });
+  if (tool && np) {
+    // medians agree to Monte Carlo noise: the difference of two independent medians, in units of the
+    // normal-theory error 1.2533 σ/√n (σ from p16–p84) of one; rms ≈ √2 when both are right.
+    const zs: number[] = [];
+    tool.galaxies.forEach((g, i) => {
+      for (const imf of benchChoices.imfs) {
+        const a = g.imf![imf];
+        const w = (a.log_mstar_p84 - a.log_mstar_p16) / 2;
+        zs.push((a.log_mstar_median - np!.galaxies[i].imf[imf].log_mstar_median) / ((1.2533 * w) / Math.sqrt(g.draws_used!)));
+      }
+    });
+    const rms = Math.sqrt(zs.reduce((s, z) => s + z * z, 0) / zs.length);
+    const mean = zs.reduce((s, z) => s + z, 0) / zs.length;
+    console.log(`   medians of log M*, tool − numpy over ${zs.length} galaxy-IMF pairs: mean ${mean.toFixed(3)}, rms ${rms.toFixed(2)} in units of one median's normal-theory error (≈ √2 = 1.41 expected for independent draws)`);
+    const name = `numpy time / tool time, ${nRows} galaxies × ${benchChoices.draws} draws × 4 IMFs, fixed draws, one thread`;
+    rows.push([name, `${median(ratios).toFixed(2)}×`, '≥ 2×', `median of ${ratios.length} alternated runs`]);
+    console.log(`${name}: ${median(ratios).toFixed(2)}×   target ≥ 2×`);
+  }
 }
 
 // 6. memory for a 100 000-row CSV

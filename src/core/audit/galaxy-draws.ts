@@ -13,6 +13,11 @@ import type { GalaxyInput } from './sample.js';
  * so a draw costs two table lookups.
  */
 interface FastBackground {
+  /** The tables themselves (x = ln(1+z) on x0 + i h), for the benchmarks' side-by-side scripts. */
+  readonly x0: number;
+  readonly h: number;
+  readonly lnDl: Float64Array;
+  readonly lnAge: Float64Array;
   luminosityDistanceMpc(z: number): number;
   ageGyr(z: number): number;
   /** ln D_L [Mpc] and ln t [Gyr] from x = ln(1+z), without the exp/log round trip. */
@@ -20,7 +25,7 @@ interface FastBackground {
   lnAgeAt(x: number): number;
 }
 const fastCache = new WeakMap<Background, FastBackground>();
-function fast(bg: Background): FastBackground {
+export function fastBackground(bg: Background): FastBackground {
   let f = fastCache.get(bg);
   if (f) return f;
   const n = 4096;
@@ -42,6 +47,10 @@ function fast(bg: Background): FastBackground {
   };
   const inRange = (z: number): boolean => z >= 0.01 && z <= 31;
   f = {
+    x0,
+    h,
+    lnDl: ld,
+    lnAge: la,
     luminosityDistanceMpc: (z) => (inRange(z) ? Math.exp(lnAt(ld, Math.log1p(z))) : bg.luminosityDistanceMpc(z)),
     ageGyr: (z) => (inRange(z) ? Math.exp(lnAt(la, Math.log1p(z))) : bg.ageGyr(z)),
     lnDlAt: (x) => (x >= x0 && x <= x1 ? lnAt(ld, x) : Math.log(bg.luminosityDistanceMpc(Math.expm1(x)))),
@@ -75,7 +84,7 @@ export interface GalaxyDraws {
 
 export function drawGalaxy(g: GalaxyInput, n: number, seed: number, bgFull: Background, zOverride?: { z: number; alt: boolean }): GalaxyDraws {
   const rnd = makeRandom(seed);
-  const bg = fast(bgFull);
+  const bg = fastBackground(bgFull);
   const z = new Float64Array(n);
   const lL = new Float64Array(n);
   const lM = new Float64Array(n);
