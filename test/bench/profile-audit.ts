@@ -9,7 +9,7 @@ import { benchChoices, sample } from './audit-sample.js';
 const rows = Number(process.argv[2] ?? 1000);
 const draws = Number(process.argv[3] ?? 20000);
 const choices = { ...benchChoices, draws };
-runAudit(sample(3), choices); // warm: halo model, ceilings, population tables
+runAudit(sample(rows), { ...choices, draws: 100 }); // warm: halo model, ceilings and their spread, population tables
 const t0 = performance.now();
 const r = runAudit(sample(rows), choices);
 const ms = performance.now() - t0;

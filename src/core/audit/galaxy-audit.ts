@@ -7,7 +7,7 @@ import { makeAccretionHistory } from './accretion.js';
 import { attribute, type AttributionDetail } from './attribution.js';
 import type { AuditChoices } from './choices.js';
 import type { CeilingTable } from './ceiling.js';
-import { drawGalaxy, type GalaxyDraws } from './galaxy-draws.js';
+import { drawGalaxy, tabulatedBackground, type GalaxyDraws } from './galaxy-draws.js';
 import { imfStatistics, type ImfResult, type ImfStatistics, type SharedDraws } from './imf-statistics.js';
 import { rescaleBase, rescalePosition } from './imf-rescale.js';
 import { idSeed, makeRandom } from './random.js';
@@ -182,10 +182,18 @@ function drawAccretion(ctx: AuditContext, g: GalaxyInput, d: GalaxyDraws, valid:
   const { halo, choices } = ctx;
   if (!(g.z < choices.formationZ)) return undefined;
   const lfb = Math.log10(halo.baryonFraction);
-  const zs = valid.map((k) => d.z[k]);
-  const ages = valid.map((k) => d.log10AgeMyr[k]);
-  const halos = Array.from(logCeil, (v) => v - lfb);
-  return logAccretedBaryons(halo.background, makeAccretionHistory(halo.background), halo.baryonFraction, choices.formationZ, zs, ages, halos);
+  const nv = valid.length;
+  const zs = new Float64Array(nv);
+  const ages = new Float64Array(nv);
+  const halos = new Float64Array(nv);
+  for (let i = 0; i < nv; i++) {
+    zs[i] = d.z[valid[i]];
+    ages[i] = d.log10AgeMyr[valid[i]];
+    halos[i] = logCeil[i] - lfb;
+  }
+  // ages and distances per draw from the draws' own tables (galaxy-draws.ts), not the direct integrals
+  const bg = tabulatedBackground(halo.background);
+  return logAccretedBaryons(bg, makeAccretionHistory(bg), halo.baryonFraction, choices.formationZ, zs, ages, halos);
 }
 
 function timeBudgetOf(ctx: AuditContext, g: GalaxyInput, head: ImfStatistics, acc: Float64Array | undefined, notes: string[]): TimeBudget | null {
