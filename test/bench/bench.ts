@@ -78,6 +78,37 @@ const bTimes = bSizes.map((n) => time(() => bgRun(n / 2), 5));
 bSizes.forEach((n, i) => report(`${n.toExponential(0)} background evaluations (D_C and age)`, bTimes[i], '—'));
 console.log(`   cost ∝ N^${slope(bSizes, bTimes).toFixed(2)}`);
 
+// 3b. the batch of luminosity distances side by side with astropy (same redshifts, same parameters)
+{
+  const n = 100000;
+  const bgA = makeBackground({ ...PLANCK18, h0: 67.66, omegaM: 0.3111, omegaB: 0.048975, omegaK: 0, tcmbK: 2.7255, nEff: 3.046, w0: -1, wa: 0 });
+  const zs = Float64Array.from({ length: n }, (_, i) => 0.01 + (20 * i) / n);
+  const out = new Float64Array(n);
+  const ratios: number[] = [];
+  let astropyVersion = '';
+  for (let r = 0; r < 3; r++) {
+    const py = spawnSync('/usr/bin/python3', ['test/bench/astropy_dl.py', String(n), '3'], { encoding: 'utf8' });
+    if (py.status !== 0) {
+      console.log(`   astropy timing failed (python3-astropy installed?): ${py.stderr.slice(0, 300)}`);
+      break;
+    }
+    const a = JSON.parse(py.stdout);
+    astropyVersion = a.astropy;
+    const ms = time(() => bgA.luminosityDistancesMpc(zs, out), 5);
+    ratios.push((a.seconds * 1000) / ms);
+    console.log(`   run ${r + 1}: astropy ${a.astropy} ${(a.seconds * 1000).toFixed(1)} ms, tool batch ${ms.toFixed(2)} ms → ${ratios[r].toFixed(0)}×`);
+  }
+  let worst = 0;
+  for (let i = 0; i < n; i++) worst = Math.max(worst, Math.abs(out[i] / bgA.luminosityDistanceMpc(zs[i]) - 1));
+  const perPoint = time(() => bgRun(n / 2), 3);
+  console.log(`   batch vs per-point D_L: worst relative difference ${worst.toExponential(2)} over ${n} redshifts; per-point D_C + age for the same count: ${perPoint.toFixed(1)} ms`);
+  if (ratios.length) {
+    const name = `D_L of 1e5 redshifts: astropy ${astropyVersion} time / tool batch time`;
+    rows.push([name, `${median(ratios).toFixed(0)}×`, '≥ 50×, ≤ 1e-9 rel.', `worst rel. ${worst.toExponential(1)}; median of ${ratios.length}`]);
+    console.log(`${name}: ${median(ratios).toFixed(0)}×   target ≥ 50×`);
+  }
+}
+
 // 4. population tables and one mass estimate
 const sfhs = ['burst', 'constant', 'exp-declining:100', 'exp-rising:100'].map(parseSfh);
 const imfs = ['salpeter', 'kroupa', 'chabrier', 'top-heavy-flat', 'top-heavy-cmb'];
