@@ -4,6 +4,7 @@ import { attenuationFromBeta } from '../stars/dust.js';
 import { ML_AGE_MIN_MYR } from '../stars/mass-to-light.js';
 import { MUV_REST_UM } from '../stars/mass-estimate.js';
 import { apparentFromAbsolute, log10LnuFromApparent, MODEL_LAMBDA_MAX_UM } from '../stars/photometry.js';
+import type { Scratch } from '../numeric/scratch.js';
 import { makeRandom } from './random.js';
 import type { GalaxyInput } from './sample.js';
 
@@ -98,14 +99,19 @@ export interface GalaxyDraws {
   readonly excluded: number;
 }
 
-export function drawGalaxy(g: GalaxyInput, n: number, seed: number, bgFull: Background, zOverride?: { z: number; alt: boolean }): GalaxyDraws {
+/**
+ * @param scratch where the draws' arrays come from (reused between calls; valid until the next call
+ *   with the same scratch); fresh arrays when absent.
+ */
+export function drawGalaxy(g: GalaxyInput, n: number, seed: number, bgFull: Background, zOverride?: { z: number; alt: boolean }, scratch?: Scratch): GalaxyDraws {
   const rnd = makeRandom(seed);
   const bg = fastBackground(bgFull);
-  const z = new Float64Array(n);
-  const lL = new Float64Array(n);
-  const lM = new Float64Array(n);
-  const lAge = new Float64Array(n);
-  const lLam = new Float64Array(n);
+  const vec = (name: string): Float64Array => (scratch ? scratch.f64(name, n) : new Float64Array(n));
+  const z = vec('draws.z');
+  const lL = vec('draws.lnu');
+  const lM = vec('draws.mass');
+  const lAge = vec('draws.age');
+  const lLam = vec('draws.lambda');
   const sLo = g.zLo !== undefined ? g.z - g.zLo : 0;
   const sHi = g.zHi !== undefined ? g.zHi - g.z : 0;
   const fracWidth = (0.5 * (sLo + sHi)) / (1 + g.z);

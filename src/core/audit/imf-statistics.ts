@@ -2,7 +2,6 @@ import { quantilesByBuckets } from '../numeric/select.js';
 import type { HaloModel } from '../halos/halo-model.js';
 import type { MassToLightTable } from '../stars/mass-to-light.js';
 import { eddingtonFirstOrderShiftDex, eddingtonPosterior } from './eddington.js';
-import { logSurvivingAt } from './time-budget.js';
 import { verdictFor, type Verdict } from './verdict.js';
 
 export interface ImfResult {
@@ -124,6 +123,41 @@ function scratchVectors(n: number): Float64Array[] {
   return [0, 1, 2, 3, 4].map((k) => scratch.subarray(k * n, (k + 1) * n));
 }
 
+/**
+ * Each draw's cell in the M/L grid and its fractional position, computed once per set of shared draws
+ * and used by every IMF's table (they share the grid: gridPositionLog). Buffers are reused from galaxy
+ * to galaxy; the cache holds only the last set of draws.
+ */
+interface CellWeights {
+  readonly cell: Int32Array;
+  readonly ageIndex: Int32Array;
+  readonly tx: Float64Array;
+  readonly ty: Float64Array;
+}
+let cellBuf = { cell: new Int32Array(0), ageIndex: new Int32Array(0), tx: new Float64Array(0), ty: new Float64Array(0) };
+let cellFor: { d: SharedDraws; nAge: number; nLam: number } | undefined;
+function cellWeights(d: SharedDraws, tab: MassToLightTable): CellWeights {
+  const n = d.n;
+  if (cellFor && cellFor.d === d && cellFor.nAge === tab.nAge && cellFor.nLam === tab.nLam) return cellBuf;
+  if (cellBuf.cell.length < n) {
+    const m = Math.max(n, 1024);
+    cellBuf = { cell: new Int32Array(m), ageIndex: new Int32Array(m), tx: new Float64Array(m), ty: new Float64Array(m) };
+  }
+  const { nAge, nLam } = tab;
+  for (let k = 0; k < n; k++) {
+    const x = d.gx[k];
+    const y = d.gy[k];
+    const i = Math.min(Math.floor(x), nAge - 2);
+    const j = Math.min(Math.floor(y), nLam - 2);
+    cellBuf.cell[k] = i * nLam + j;
+    cellBuf.ageIndex[k] = i;
+    cellBuf.tx[k] = x - i;
+    cellBuf.ty[k] = y - j;
+  }
+  cellFor = { d, nAge, nLam };
+  return cellBuf;
+}
+
 /** Local slope α of dn/dlnM ∝ M^−α at M (centred difference over ±0.041 dex). */
 function localSlope(halo: HaloModel, m: number, z: number): number {
   return -Math.log(halo.dndlnM(m * 1.1, z) / halo.dndlnM(m / 1.1, z)) / Math.log(1.21);
@@ -141,8 +175,20 @@ export function imfStatistics(tab: MassToLightTable, d: SharedDraws, ed: Eddingt
   let strained = 0;
   let tbOver = 0;
   const lRef = Math.log10(ed.epsRef);
+  const w = cellWeights(d, tab);
+  const L = tab.logLnu;
+  const S = tab.logSurv;
+  const nLam = tab.nLam;
+  const { cell, ageIndex, tx: txs, ty: tys } = w;
   for (let i = 0; i < nv; i++) {
-    const v = d.base[i] + tab.logMassToLightAt(d.gx[i], d.gy[i]);
+    // the table's own bilinear rule (MassToLightTable.logMassToLightAt), term for term, at the shared cell
+    const c = cell[i];
+    const a = ageIndex[i];
+    const tx = txs[i];
+    const ty = tys[i];
+    const lnu = (1 - tx) * ((1 - ty) * L[c] + ty * L[c + 1]) + tx * ((1 - ty) * L[c + nLam] + ty * L[c + nLam + 1]);
+    const surv = (1 - tx) * S[a] + tx * S[a + 1];
+    const v = d.base[i] + (surv - lnu);
     lm[i] = v;
     const e = v - d.logCeil[i];
     leps[i] = e;
@@ -151,7 +197,8 @@ export function imfStatistics(tab: MassToLightTable, d: SharedDraws, ed: Eddingt
     if (e > d.cosmoOffset[i]) overCosmo++;
     if (e > lRef) strained++;
     if (acc) {
-      const f = v - logSurvivingAt(tab, d.gx[i]);
+      // log10 (1 − R) at the draw's age: the same interpolation as logSurvivingAt
+      const f = v - surv;
       const r = f - acc[i];
       lratio![i] = r;
       if (lformed) lformed[i] = f;

@@ -6,3 +6,5 @@ export { findRoot } from './root-find.js';
 export { quantileSorted } from './quantile.js';
 export { selectKth, quantilesBySelection, quantilesByBuckets } from './select.js';
 export { isStrictNumber, parseStrictNumber } from './strict-number.js';
+export { makeScratch } from './scratch.js';
+export type { Scratch } from './scratch.js';
