@@ -67,6 +67,7 @@ const BUCKETS = 4096;
 let bucketOf = new Uint16Array(0);
 let gathered = new Float64Array(0);
 const counts = new Int32Array(BUCKETS + 1);
+const start = new Int32Array(BUCKETS + 1);
 
 /**
  * The same type-7 quantiles as quantilesBySelection (bit for bit: the same order statistics and the
@@ -104,7 +105,7 @@ export function quantilesByBuckets(a: Float64Array, n: number, qs: readonly numb
     if (h !== lo && lo + 1 < n) ranks.push(lo + 1);
   }
   // cumulative start of each bucket; slot of each wanted bucket in the gathered array
-  const start = new Int32Array(BUCKETS + 1);
+  start.fill(0);
   for (let b = 0; b < BUCKETS; b++) start[b + 1] = start[b] + counts[b];
   const bucketOfRank = (r: number): number => {
     let lo = 0;
