@@ -18,6 +18,7 @@ import {
   type GalaxyPoints,
   type GalaxyRow,
 } from '../src/core/audit/index.js';
+import { disputedMap, type DisputedMap } from '../src/core/audit/disputed-map.js';
 import { makeHaloModel, MASS_FUNCTIONS } from '../src/core/halos/index.js';
 import type { CosmologyParams } from '../src/core/cosmology/index.js';
 import type { TransferSpec } from '../src/core/power/index.js';
@@ -52,6 +53,8 @@ export interface ExplorerResponse {
 }
 
 let current = 0;
+/** The prepared audit behind the last map (see auditApi.map). */
+let mapPrep: { key: string; prep: ReturnType<typeof prepareAudit> } | undefined;
 
 /**
  * Results of rows already audited under the same choices, keyed by (choices, row number, cells): an
@@ -161,6 +164,16 @@ export const auditApi = {
       return { name: mf.name, label: mf.label, log10N: Float64Array.from(log10M, (l) => Math.log10(Math.max(s.nAbove(10 ** l), 1e-300))) };
     });
     return Comlink.transfer({ log10M, series }, [log10M.buffer as ArrayBuffer, ...series.map((s) => s.log10N.buffer as ArrayBuffer)]);
+  },
+  /**
+   * The map of one galaxy (the fifth figure): median ε_req over redshift × IMF slope, for the row at
+   * `rowIndex` of `req`'s sample. The prepared audit (and its mass-to-light tables) of the last map is kept,
+   * so picking another galaxy of the same sample does not prepare it again.
+   */
+  map(req: AuditRequest, rowIndex: number): DisputedMap {
+    const key = `${JSON.stringify(req.choices)}|${req.csv}`;
+    if (!mapPrep || mapPrep.key !== key) mapPrep = { key, prep: prepareAudit(req.csv, req.choices) };
+    return disputedMap(mapPrep.prep, rowIndex);
   },
   /** For the recovery tests: a request that throws inside the worker. */
   fail(message: string): never {

@@ -1,5 +1,6 @@
 import * as Comlink from 'comlink';
 import type { AuditChoices } from '../core/audit/choices.js';
+import type { DisputedMap } from '../core/audit/disputed-map.js';
 import type { AuditApi, AuditResponse, ExplorerRequest, ExplorerResponse } from '../../workers/audit.worker.js';
 
 export interface ControllerState {
@@ -147,6 +148,11 @@ export class AuditController {
 
   explore(req: ExplorerRequest): Promise<ExplorerResponse> {
     return this.api.explore(req);
+  }
+
+  /** The map of the galaxy at `rowIndex` of the sample (the fifth figure), computed in the main worker. */
+  map(csv: string, choices: AuditChoices, rowIndex: number): Promise<DisputedMap> {
+    return this.api.map({ id: 0, csv, choices }, rowIndex);
   }
 
   /** Kills the worker as a crash would (used by the recovery tests). */

@@ -12,7 +12,9 @@ import { DEFAULT_CHOICES } from './default-choices.js';
 import { download } from './downloads.js';
 import { canRedo, canUndo, record, redo, startHistory, undo, type EditHistory, type HistoryLimits } from './edit-history.js';
 import type { SurveyChoices } from './survey-editor.js';
+import type { DisputedMap } from '../core/audit/disputed-map.js';
 import './audit-chart.js';
+import './disputed-map-figure.js';
 import './choice-panel.js';
 import './results-table.js';
 import './sample-editor.js';
@@ -56,6 +58,8 @@ export class BaryonAuditApp extends LitElement {
   @state() private explorerZ = 10;
   @state() private explorer?: ChartModel;
   private controller?: AuditController;
+  /** The fifth figure: the map of the chosen galaxy, for the response on show (`key` = response id | galaxy id). */
+  @state() private mapView: { key: string; map?: DisputedMap; busy: boolean; message: string } = { key: '', busy: false, message: '' };
   private timer?: ReturnType<typeof setTimeout>;
   private lastShown = 0;
   /** Figure models of the response on show, rebuilt only when the response or the selection changes. */
@@ -256,7 +260,38 @@ export class BaryonAuditApp extends LitElement {
     }
   }
 
+  /** The galaxy of the IMF figure and the map: the selected one, else the first audited. */
+  private chosenIndex(): number {
+    const gs = this.ctl.response?.result?.galaxies ?? [];
+    const i = gs.findIndex((g) => g.id === this.selected && g.status === 'ok');
+    return i >= 0 ? i : gs.findIndex((g) => g.status === 'ok');
+  }
+
+  /** Asks the worker for the map of the chosen galaxy when the response or the choice of galaxy changed. */
+  private loadMap(): void {
+    const resp = this.ctl.response;
+    const r = resp?.result;
+    if (!resp || !r || this.ctl.status !== 'done' || !this.controller) return;
+    const i = this.chosenIndex();
+    const key = i < 0 ? `${resp.id}|` : `${resp.id}|${r.galaxies[i].id}`;
+    if (key === this.mapView.key) return;
+    if (i < 0) {
+      this.mapView = { key, busy: false, message: 'no audited galaxy to map' };
+      return;
+    }
+    this.mapView = { ...this.mapView, key, busy: true, message: '' };
+    this.controller.map(r.record.sample_csv, r.record.choices, i).then(
+      (map) => {
+        if (this.mapView.key === key) this.mapView = { key, map, busy: false, message: '' };
+      },
+      (e: unknown) => {
+        if (this.mapView.key === key) this.mapView = { key, busy: false, message: `map of ${r.galaxies[i].id}: ${(e as Error).message}` };
+      },
+    );
+  }
+
   protected updated(): void {
+    this.loadMap();
     const resp = this.ctl.response;
     if (resp && this.ctl.status === 'done' && resp.id !== this.lastShown) {
       this.lastShown = resp.id;
@@ -407,6 +442,7 @@ export class BaryonAuditApp extends LitElement {
               <h2>Figures</h2>
               <div class="figs" @download=${(e: CustomEvent<{ name: string; blob: Blob }>) => download(e.detail.name, e.detail.blob)}>
                 ${figs.map((m) => html`<audit-chart .model=${m} .highlight=${this.selected}></audit-chart>`)}
+                ${result ? html`<disputed-map-figure .map=${this.mapView.map} .result=${result} ?busy=${this.mapView.busy} .message=${this.mapView.message}></disputed-map-figure>` : nothing}
                 <div>
                   <label class="explorer-z">explorer redshift <input type="number" min="0" max="30" step="0.5" .value=${String(this.explorerZ)} @change=${(e: Event) => {
                     const v = Number((e.target as HTMLInputElement).value);
