@@ -28,7 +28,7 @@ describe('the map of a disputed galaxy (fifth figure)', () => {
     localStorage.clear();
     const app = document.createElement('baryon-audit-app');
     document.body.append(app);
-    const table = await waitFor('the results', () => app.shadowRoot?.querySelector('results-table')?.shadowRoot?.querySelector('tr[data-id]') && app.shadowRoot!.querySelector('results-table')!);
+    const table = await waitFor('the results', () => (app.shadowRoot?.querySelector('results-table')?.shadowRoot?.querySelector('tr[data-id]') ? app.shadowRoot!.querySelector('results-table')! : undefined));
     const over = [...table.shadowRoot!.querySelectorAll('tr[data-id]')].find((r) => r.querySelector('.verdict')?.textContent === 'over budget');
     expect(over, 'the demo has an over-budget galaxy').to.exist;
     const id = over!.getAttribute('data-id')!;
