@@ -1,6 +1,6 @@
 import { LitElement, css, html, nothing } from 'lit';
 import { customElement, state } from 'lit/decorators.js';
-import type { AuditChoices } from '../core/audit/choices.js';
+import { normalizeChoices, type AuditChoices } from '../core/audit/choices.js';
 import type { RowProblem } from '../core/audit/sample.js';
 import { DEMO_SAMPLE_CSV, DEMO_SURVEY } from '../demo/demo-sample.js';
 import { decodeShare, encodeShare, loadSaved, makeRecord, recordFromJson, save } from './app-state.js';
@@ -13,12 +13,18 @@ import { download } from './downloads.js';
 import { canRedo, canUndo, record, redo, startHistory, undo, type EditHistory, type HistoryLimits } from './edit-history.js';
 import type { SurveyChoices } from './survey-editor.js';
 import type { DisputedMap } from '../core/audit/disputed-map.js';
-import './audit-chart.js';
-import './disputed-map-figure.js';
 import './choice-panel.js';
 import './results-table.js';
 import './sample-editor.js';
 import './survey-editor.js';
+
+/**
+ * The figure elements (uPlot, the canvas map, the exports) are a chunk of their own, fetched as soon as the
+ * page starts, while the first audit runs: the figures exist only once a result is there.
+ */
+let figuresLoading: Promise<unknown> | undefined;
+const figureElements = (): Promise<unknown> => (figuresLoading ??= Promise.all([import('./audit-chart.js'), import('./disputed-map-figure.js')]));
+void figureElements();
 
 /** One state of the bench: the sample text, every choice, and the edit that led to it (for Undo's label). */
 interface Bench {
@@ -30,7 +36,12 @@ interface Bench {
 /** Undo reaches 200 edits back, within about 40 MB of sample text. */
 const HISTORY_LIMITS: HistoryLimits<Bench> = { maxEntries: 200, maxSize: 2e7, sizeOf: (b) => b.csv.length + 2000 };
 const sameBench = (a: Bench, b: Bench): boolean => a.csv === b.csv && a.choices === b.choices;
-const choicesKey = (c: AuditChoices): string => JSON.stringify(c);
+/**
+ * The choices as the record keeps them: the headline IMF made explicit (the core's normalizeChoices), keys in
+ * one order, so the panel's choices and a result's record compare equal when they mean the same audit.
+ */
+const choicesKey = (c: AuditChoices): string =>
+  JSON.stringify(normalizeChoices(c), (_, v: unknown) => (v && typeof v === 'object' && !Array.isArray(v) ? Object.fromEntries(Object.entries(v).sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0))) : v));
 
 interface Invalid {
   readonly field: string;
@@ -295,8 +306,9 @@ export class BaryonAuditApp extends LitElement {
     const resp = this.ctl.response;
     if (resp && this.ctl.status === 'done' && resp.id !== this.lastShown) {
       this.lastShown = resp.id;
-      const charts = [...this.renderRoot.querySelectorAll('audit-chart')];
-      void Promise.all(charts.map((c) => c.updateComplete)).then(() =>
+      void figureElements()
+        .then(() => Promise.all([...this.renderRoot.querySelectorAll('audit-chart')].map((c) => c.updateComplete)))
+        .then(() =>
         this.dispatchEvent(new CustomEvent('audit-complete', { detail: { id: resp.id, elapsedMs: resp.elapsedMs }, bubbles: true, composed: true })),
       );
     }
