@@ -1,6 +1,7 @@
 import * as Comlink from 'comlink';
 import type { AuditChoices } from '../core/audit/choices.js';
 import type { DisputedMap } from '../core/audit/disputed-map.js';
+import type { ParamCovariance } from '../core/cosmology/parameter-covariance.js';
 import type { AuditApi, AuditResponse, ExplorerRequest, ExplorerResponse } from '../../workers/audit.worker.js';
 
 export interface ControllerState {
@@ -153,6 +154,16 @@ export class AuditController {
   /** The map of the galaxy at `rowIndex` of the sample (the fifth figure), computed in the main worker. */
   map(csv: string, choices: AuditChoices, rowIndex: number): Promise<DisputedMap> {
     return this.api.map({ id: 0, csv, choices }, rowIndex);
+  }
+
+  /** The intrinsic UV slope β of an IMF under an SFH at an age (computed in the main worker). */
+  uvSlope(imf: string, sfh: string, metallicity: number, ageMyr: number, z: number): Promise<number> {
+    return this.api.uvSlope(imf, sfh, metallicity, ageMyr, z);
+  }
+
+  /** Parses a covariance CSV in the main worker (which has the CSV reader); rejects with the parser's message. */
+  parseCovariance(text: string, sourceName: string): Promise<ParamCovariance> {
+    return this.api.parseCovariance(text, sourceName);
   }
 
   /** Kills the worker as a crash would (used by the recovery tests). */

@@ -7,7 +7,7 @@ import { decodeShare, encodeShare, loadSaved, makeRecord, recordFromJson, save }
 import { AuditController, type ControllerState } from './audit-controller.js';
 import type { ChartModel } from './chart/chart-config.js';
 import { densityFigure, explorerFigure, galaxyImfFigure, massRedshiftFigure } from './chart/figures.js';
-import type { PanelChoices } from './choice-panel.js';
+import { headlineOf, type PanelChoices, type UvSlopeView } from './choice-panel.js';
 import { DEFAULT_CHOICES } from './default-choices.js';
 import { download } from './downloads.js';
 import { canRedo, canUndo, record, redo, startHistory, undo, type EditHistory, type HistoryLimits } from './edit-history.js';
@@ -271,6 +271,29 @@ export class BaryonAuditApp extends LitElement {
     }
   }
 
+  /** The headline IMF's intrinsic UV slope for the chosen SFH at 100 Myr, computed in the worker. */
+  @state() private uv?: UvSlopeView;
+  private uvKey = '';
+  private readonly covParser = (text: string, name: string) => this.controller!.parseCovariance(text, name);
+
+  private loadUvSlope(): void {
+    const c = this.choices;
+    const imf = headlineOf(c);
+    const z = Math.round(((c.survey.zMin + c.survey.zMax) / 2) * 2) / 2;
+    const key = JSON.stringify([imf, c.sfh, c.metallicity, z]);
+    if (!this.controller || key === this.uvKey) return;
+    this.uvKey = key;
+    const base = { imf, sfh: c.sfh, ageMyr: 100, z };
+    this.controller.uvSlope(imf, c.sfh, c.metallicity, 100, z).then(
+      (beta) => {
+        if (this.uvKey === key) this.uv = { ...base, beta };
+      },
+      (e: unknown) => {
+        if (this.uvKey === key) this.uv = { ...base, message: (e as Error).message };
+      },
+    );
+  }
+
   /** The galaxy of the IMF figure and the map: the selected one, else the first audited. */
   private chosenIndex(): number {
     const gs = this.ctl.response?.result?.galaxies ?? [];
@@ -303,6 +326,7 @@ export class BaryonAuditApp extends LitElement {
 
   protected updated(): void {
     this.loadMap();
+    this.loadUvSlope();
     const resp = this.ctl.response;
     if (resp && this.ctl.status === 'done' && resp.id !== this.lastShown) {
       this.lastShown = resp.id;
@@ -426,7 +450,7 @@ export class BaryonAuditApp extends LitElement {
           <h2 id="survey-heading" tabindex="-1">Survey</h2>
           <survey-editor .value=${{ survey: this.choices.survey, surveys: this.choices.surveys, zBins: this.choices.zBins }} @survey-change=${this.onSurvey} @choices-validity=${this.onValidity}></survey-editor>
           <h2 id="choices-heading" tabindex="-1">Choices</h2>
-          <choice-panel .choices=${this.choices} @choices-change=${this.onChoices} @choices-validity=${this.onValidity}></choice-panel>
+          <choice-panel .choices=${this.choices} .uvSlope=${this.uv} .covarianceParser=${this.covParser} @choices-change=${this.onChoices} @choices-validity=${this.onValidity}></choice-panel>
         </section>
         <section aria-label="results">
           ${this.notice ? html`<p class="notice" role="status">${this.notice} <button type="button" @click=${() => (this.notice = '')}>dismiss</button></p>` : nothing}
