@@ -22,6 +22,11 @@ import {
   type GalaxyRow,
 } from '../src/core/audit/index.js';
 import { dealRows } from '../src/core/audit/row-dealing.js';
+import { disputedMap, type DisputedMap } from '../src/core/audit/disputed-map.js';
+import { parseCovarianceCsv } from '../src/core/cosmology/cov-csv.js';
+import type { ParamCovariance } from '../src/core/cosmology/parameter-covariance.js';
+import { intrinsicUvSlope, makePopulationCache, type PopulationCache } from '../src/core/stars/index.js';
+import { parseSfh } from '../src/core/stars/sfh.js';
 import { makeHaloModel, MASS_FUNCTIONS } from '../src/core/halos/index.js';
 import type { CosmologyParams } from '../src/core/cosmology/index.js';
 import type { TransferSpec } from '../src/core/power/index.js';
@@ -64,6 +69,10 @@ export interface ExplorerResponse {
 }
 
 let current = 0;
+/** Populations for the UV slope, per metallicity (see auditApi.uvSlope). */
+const uvPops = new Map<number, PopulationCache>();
+/** The prepared audit behind the last map (see auditApi.map). */
+let mapPrep: { key: string; prep: ReturnType<typeof prepareAudit> } | undefined;
 
 /**
  * Results of rows already audited under the same choices, keyed by (choices, row number, cells): an
@@ -206,6 +215,33 @@ export const auditApi = {
       return { name: mf.name, label: mf.label, log10N: Float64Array.from(log10M, (l) => Math.log10(Math.max(s.nAbove(10 ** l), 1e-300))) };
     });
     return Comlink.transfer({ log10M, series }, [log10M.buffer as ArrayBuffer, ...series.map((s) => s.log10N.buffer as ArrayBuffer)]);
+  },
+  /**
+   * The map of one galaxy (the fifth figure): median ε_req over redshift × IMF slope, for the row at
+   * `rowIndex` of `req`'s sample. The prepared audit (and its mass-to-light tables) of the last map is kept,
+   * so picking another galaxy of the same sample does not prepare it again.
+   */
+  map(req: AuditRequest, rowIndex: number): DisputedMap {
+    const key = `${JSON.stringify(req.choices)}|${req.csv}`;
+    if (!mapPrep || mapPrep.key !== key) mapPrep = { key, prep: prepareAudit(req.csv, req.choices) };
+    return disputedMap(mapPrep.prep, rowIndex);
+  },
+  /**
+   * The intrinsic UV slope β (1300–2600 Å, dust-free) of `imf` under the star-formation history `sfh` at
+   * `ageMyr`, for metallicity `metallicity` (mass fraction) and redshift `z` (for IMFs that depend on it).
+   */
+  uvSlope(imf: string, sfh: string, metallicity: number, ageMyr: number, z: number): number {
+    let cache = uvPops.get(metallicity);
+    if (!cache) {
+      if (uvPops.size > 8) uvPops.clear();
+      cache = makePopulationCache(metallicity);
+      uvPops.set(metallicity, cache);
+    }
+    return intrinsicUvSlope(cache.population(imf, z), parseSfh(sfh), ageMyr);
+  },
+  /** A covariance of the base parameters from CSV text (the core's parser; its message names line and column). */
+  parseCovariance(text: string, sourceName: string): ParamCovariance {
+    return parseCovarianceCsv(text, sourceName);
   },
   /** For the recovery tests: a request that throws inside the worker. */
   fail(message: string): never {

@@ -2,6 +2,8 @@ import * as Comlink from 'comlink';
 import type { AuditChoices } from '../core/audit/choices.js';
 import { POOL_MIN_ROWS, threadsFor } from '../core/audit/row-dealing.js';
 import type { GalaxyRow } from '../core/audit/run-audit.js';
+import type { DisputedMap } from '../core/audit/disputed-map.js';
+import type { ParamCovariance } from '../core/cosmology/parameter-covariance.js';
 import type { AuditApi, AuditResponse, ExplorerRequest, ExplorerResponse } from '../../workers/audit.worker.js';
 
 export interface ControllerState {
@@ -313,6 +315,24 @@ export class AuditController {
   async explore(req: ExplorerRequest): Promise<ExplorerResponse> {
     this.ensureStarted();
     return this.call(this.main, (api) => api.explore(req));
+  }
+
+  /** The map of the galaxy at `rowIndex` of the sample (the fifth figure), computed in the main worker. */
+  async map(csv: string, choices: AuditChoices, rowIndex: number): Promise<DisputedMap> {
+    this.ensureStarted();
+    return this.call(this.main, (api) => api.map({ id: 0, csv, choices }, rowIndex));
+  }
+
+  /** The intrinsic UV slope β of an IMF under an SFH at an age (computed in the main worker). */
+  async uvSlope(imf: string, sfh: string, metallicity: number, ageMyr: number, z: number): Promise<number> {
+    this.ensureStarted();
+    return this.call(this.main, (api) => api.uvSlope(imf, sfh, metallicity, ageMyr, z));
+  }
+
+  /** Parses a covariance CSV in the main worker (which has the CSV reader); rejects with the parser's message. */
+  async parseCovariance(text: string, sourceName: string): Promise<ParamCovariance> {
+    this.ensureStarted();
+    return this.call(this.main, (api) => api.parseCovariance(text, sourceName));
   }
 
   /** Kills the worker as a crash would (used by the recovery tests). */

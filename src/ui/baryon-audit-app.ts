@@ -7,17 +7,25 @@ import { decodeShare, encodeShare, loadSaved, makeRecord, recordFromJson, save }
 import { AuditController, type ControllerState } from './audit-controller.js';
 import type { ChartModel } from './chart/chart-config.js';
 import { densityFigure, explorerFigure, galaxyImfFigure, massRedshiftFigure } from './chart/figures.js';
-import type { PanelChoices } from './choice-panel.js';
+import { headlineOf, type PanelChoices, type UvSlopeView } from './choice-panel.js';
 import { DEFAULT_CHOICES } from './default-choices.js';
 import { download } from './downloads.js';
 import { canRedo, canUndo, record, redo, startHistory, undo, type EditHistory, type HistoryLimits } from './edit-history.js';
 import type { SurveyChoices } from './survey-editor.js';
-import './audit-chart.js';
 import './audit-summary.js';
+import type { DisputedMap } from '../core/audit/disputed-map.js';
 import './choice-panel.js';
 import './results-table.js';
 import './sample-editor.js';
 import './survey-editor.js';
+
+/**
+ * The figure elements (uPlot, the canvas map, the exports) are a chunk of their own, fetched as soon as the
+ * page starts, while the first audit runs: the figures exist only once a result is there.
+ */
+let figuresLoading: Promise<unknown> | undefined;
+const figureElements = (): Promise<unknown> => (figuresLoading ??= Promise.all([import('./audit-chart.js'), import('./disputed-map-figure.js')]));
+void figureElements();
 
 /** One state of the bench: the sample text, every choice, and the edit that led to it (for Undo's label). */
 interface Bench {
@@ -29,8 +37,12 @@ interface Bench {
 /** Undo reaches 200 edits back, within about 40 MB of sample text. */
 const HISTORY_LIMITS: HistoryLimits<Bench> = { maxEntries: 200, maxSize: 2e7, sizeOf: (b) => b.csv.length + 2000 };
 const sameBench = (a: Bench, b: Bench): boolean => a.csv === b.csv && a.choices === b.choices;
-/** Choices compared as the audit sees them (normalised: the headline IMF set and compared), keys sorted. */
-const choicesKey = (c: AuditChoices): string => JSON.stringify(normalizeChoices(c), (_k, v: unknown) => (v && typeof v === 'object' && !Array.isArray(v) ? Object.fromEntries(Object.entries(v).sort(([a], [b]) => (a < b ? -1 : 1))) : v));
+/**
+ * The choices as the record keeps them: the headline IMF made explicit (the core's normalizeChoices), keys in
+ * one order, so the panel's choices and a result's record compare equal when they mean the same audit.
+ */
+const choicesKey = (c: AuditChoices): string =>
+  JSON.stringify(normalizeChoices(c), (_, v: unknown) => (v && typeof v === 'object' && !Array.isArray(v) ? Object.fromEntries(Object.entries(v).sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0))) : v));
 
 interface Invalid {
   readonly field: string;
@@ -58,6 +70,8 @@ export class BaryonAuditApp extends LitElement {
   @state() private explorerZ = 10;
   @state() private explorer?: ChartModel;
   private controller?: AuditController;
+  /** The fifth figure: the map of the chosen galaxy, for the response on show (`key` = response id | galaxy id). */
+  @state() private mapView: { key: string; map?: DisputedMap; busy: boolean; message: string } = { key: '', busy: false, message: '' };
   private timer?: ReturnType<typeof setTimeout>;
   private lastShown = 0;
   /** Figure models of the response on show, rebuilt only when the response or the selection changes. */
@@ -265,12 +279,68 @@ export class BaryonAuditApp extends LitElement {
     }
   }
 
+  /** The headline IMF's intrinsic UV slope for the chosen SFH at 100 Myr, computed in the worker. */
+  @state() private uv?: UvSlopeView;
+  private uvKey = '';
+  private readonly covParser = (text: string, name: string) => this.controller!.parseCovariance(text, name);
+
+  private loadUvSlope(): void {
+    const c = this.choices;
+    const imf = headlineOf(c);
+    const z = Math.round(((c.survey.zMin + c.survey.zMax) / 2) * 2) / 2;
+    const key = JSON.stringify([imf, c.sfh, c.metallicity, z]);
+    if (!this.controller || key === this.uvKey) return;
+    this.uvKey = key;
+    const base = { imf, sfh: c.sfh, ageMyr: 100, z };
+    this.controller.uvSlope(imf, c.sfh, c.metallicity, 100, z).then(
+      (beta) => {
+        if (this.uvKey === key) this.uv = { ...base, beta };
+      },
+      (e: unknown) => {
+        if (this.uvKey === key) this.uv = { ...base, message: (e as Error).message };
+      },
+    );
+  }
+
+  /** The galaxy of the IMF figure and the map: the selected one, else the first audited. */
+  private chosenIndex(): number {
+    const gs = this.ctl.response?.result?.galaxies ?? [];
+    const i = gs.findIndex((g) => g.id === this.selected && g.status === 'ok');
+    return i >= 0 ? i : gs.findIndex((g) => g.status === 'ok');
+  }
+
+  /** Asks the worker for the map of the chosen galaxy when the response or the choice of galaxy changed. */
+  private loadMap(): void {
+    const resp = this.ctl.response;
+    const r = resp?.result;
+    if (!resp || !r || this.ctl.status !== 'done' || !this.controller) return;
+    const i = this.chosenIndex();
+    const key = i < 0 ? `${resp.id}|` : `${resp.id}|${r.galaxies[i].id}`;
+    if (key === this.mapView.key) return;
+    if (i < 0) {
+      this.mapView = { key, busy: false, message: 'no audited galaxy to map' };
+      return;
+    }
+    this.mapView = { ...this.mapView, key, busy: true, message: '' };
+    this.controller.map(r.record.sample_csv, r.record.choices, i).then(
+      (map) => {
+        if (this.mapView.key === key) this.mapView = { key, map, busy: false, message: '' };
+      },
+      (e: unknown) => {
+        if (this.mapView.key === key) this.mapView = { key, busy: false, message: `map of ${r.galaxies[i].id}: ${(e as Error).message}` };
+      },
+    );
+  }
+
   protected updated(): void {
+    this.loadMap();
+    this.loadUvSlope();
     const resp = this.ctl.response;
     if (resp && this.ctl.status === 'done' && resp.id !== this.lastShown) {
       this.lastShown = resp.id;
-      const charts = [...this.renderRoot.querySelectorAll('audit-chart')];
-      void Promise.all(charts.map((c) => c.updateComplete)).then(() =>
+      void figureElements()
+        .then(() => Promise.all([...this.renderRoot.querySelectorAll('audit-chart')].map((c) => c.updateComplete)))
+        .then(() =>
         this.dispatchEvent(new CustomEvent('audit-complete', { detail: { id: resp.id, elapsedMs: resp.elapsedMs }, bubbles: true, composed: true })),
       );
     }
@@ -392,7 +462,7 @@ export class BaryonAuditApp extends LitElement {
           <h2 id="survey-heading" tabindex="-1">Survey</h2>
           <survey-editor .value=${{ survey: this.choices.survey, surveys: this.choices.surveys, zBins: this.choices.zBins }} @survey-change=${this.onSurvey} @choices-validity=${this.onValidity}></survey-editor>
           <h2 id="choices-heading" tabindex="-1">Choices</h2>
-          <choice-panel .choices=${this.choices} @choices-change=${this.onChoices} @choices-validity=${this.onValidity}></choice-panel>
+          <choice-panel .choices=${this.choices} .uvSlope=${this.uv} .covarianceParser=${this.covParser} @choices-change=${this.onChoices} @choices-validity=${this.onValidity}></choice-panel>
         </section>
         <section aria-label="results">
           ${this.notice ? html`<p class="notice" role="status">${this.notice} <button type="button" @click=${() => (this.notice = '')}>dismiss</button></p>` : nothing}
@@ -422,6 +492,7 @@ export class BaryonAuditApp extends LitElement {
               <h2>Figures</h2>
               <div class="figs" @download=${(e: CustomEvent<{ name: string; blob: Blob }>) => download(e.detail.name, e.detail.blob)}>
                 ${figs.map((m) => html`<audit-chart .model=${m} .highlight=${this.selected}></audit-chart>`)}
+                ${result ? html`<disputed-map-figure .map=${this.mapView.map} .result=${result} ?busy=${this.mapView.busy} .message=${this.mapView.message}></disputed-map-figure>` : nothing}
                 <div>
                   <label class="explorer-z">explorer redshift <input type="number" min="0" max="30" step="0.5" .value=${String(this.explorerZ)} @change=${(e: Event) => {
                     const v = Number((e.target as HTMLInputElement).value);

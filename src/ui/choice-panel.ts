@@ -3,6 +3,8 @@ import { customElement, property, state } from 'lit/decorators.js';
 import { live } from 'lit/directives/live.js';
 import type { AuditChoices } from '../core/audit/index.js';
 import { PARAM_SPECS, PRESETS, type CosmologyParams } from '../core/cosmology/index.js';
+import { presetCovariance, type ParamCovariance } from '../core/cosmology/parameter-covariance.js';
+import { decodeText } from '../core/audit/text-decoding.js';
 import { MASS_FUNCTIONS } from '../core/halos/index.js';
 import { IMF_PRESETS, parseCustomImf } from '../core/stars/index.js';
 import { parseSfh } from '../core/stars/sfh.js';
@@ -21,6 +23,22 @@ export const headlineOf = (c: PanelChoices): string => (c.headlineImf && c.imfs.
 /** The IMF list with `name` first (the headline), the others in their order. */
 const withHeadline = (imfs: readonly string[], name: string): string[] => [name, ...imfs.filter((i) => i !== name)];
 
+/** The growth-factor choices, with what each means (src/core/cosmology/growth.ts). */
+const GROWTH: Record<string, string> = {
+  'matter-lambda': 'matter and Λ only: radiation left out of the growth equation (the usual convention for halo mass functions)',
+  'with-radiation': 'with radiation: photons and massless neutrinos (Ω_r from T_CMB and N_eff) in H(z) of the growth equation',
+};
+
+/** The intrinsic UV slope shown in the population section (computed in the worker). */
+export interface UvSlopeView {
+  readonly imf: string;
+  readonly sfh: string;
+  readonly ageMyr: number;
+  readonly z: number;
+  readonly beta?: number;
+  readonly message?: string;
+}
+
 const TRANSFERS: Record<string, string> = { eh98: 'Eisenstein & Hu 1998', 'eh98-nowiggle': 'Eisenstein & Hu 1998, no wiggles', bbks: 'BBKS 1986' };
 const SFHS = ['constant', 'burst', 'exp-declining', 'exp-rising', 'piecewise'];
 
@@ -35,6 +53,11 @@ const SFHS = ['constant', 'burst', 'exp-declining', 'exp-rising', 'piecewise'];
 @customElement('choice-panel')
 export class ChoicePanel extends LitElement {
   @property({ attribute: false }) choices?: PanelChoices;
+  /** The headline IMF's intrinsic UV slope for the chosen SFH (from the worker), shown under the SFH. */
+  @property({ attribute: false }) uvSlope?: UvSlopeView;
+  /** Reads a covariance CSV (the core's parser, run in the worker); rejects with a message naming line and column. */
+  @property({ attribute: false }) covarianceParser?: (text: string, name: string) => Promise<ParamCovariance>;
+  @state() private covMessage = '';
   @state() private problems: Record<string, string> = {};
   private lastSent?: PanelChoices;
   private readonly help = new FieldHelp(this);
@@ -59,6 +82,11 @@ export class ChoicePanel extends LitElement {
       .note { font-size: 0.8rem; color: #444; margin: 0.2rem 0; }
       .help { position: sticky; top: 0; z-index: 1; }
       .help.on { background: #f4f8fb; }
+      .cov { display: flex; flex-wrap: wrap; gap: 0.3rem 0.8rem; align-items: center; margin: 0.3rem 0 0; }
+      .cov label.row { flex-direction: row; gap: 0.3rem; align-items: center; }
+      label.button { display: inline-block; padding: 0.2rem 0.6rem; border: 1px solid #777; border-radius: 4px; background: #fafafa; cursor: pointer; }
+      label.button:focus-within { outline: 2px solid #0072B2; }
+      .visually-hidden { position: absolute; width: 1px; height: 1px; overflow: hidden; clip: rect(0 0 0 0); white-space: nowrap; }
     `,
   ];
 
@@ -173,6 +201,66 @@ export class ChoicePanel extends LitElement {
     return this.problems[k] ? html`<span class="err" role="alert">${this.problems[k]}</span>` : nothing;
   }
 
+  /** The growth-factor choice; the default leaves the key out, so records and links of the default stay as they were. */
+  private growthField(c: PanelChoices) {
+    const g = c.growth ?? 'matter-lambda';
+    return html`<label data-help=${`growth factor: ${GROWTH[g]}`}>growth factor<select aria-label="growth factor" @change=${(e: Event) => {
+      const v = (e.target as HTMLSelectElement).value;
+      const { growth: _, ...rest } = c;
+      this.emit(v === 'matter-lambda' ? rest : { ...c, growth: v as 'with-radiation' });
+    }}>
+      ${Object.entries(GROWTH).map(([k, doc]) => html`<option value=${k} ?selected=${k === g} title=${doc}>${k}</option>`)}
+    </select></label>`;
+  }
+
+  /** Where the ceiling's cosmological spread comes from: the preset's 1σ errors, or an imported covariance file. */
+  private covarianceField(c: PanelChoices) {
+    const preset = Object.keys(PRESETS).find((k) => JSON.stringify(PRESETS[k]) === JSON.stringify(c.cosmology));
+    let presetSource: string;
+    try {
+      presetSource = preset ? presetCovariance(preset).source : `${presetCovariance('planck18').source} (the cosmology is not a preset: Planck 2018's errors are used)`;
+    } catch (e) {
+      presetSource = (e as Error).message;
+    }
+    const own = c.cosmologyCovariance;
+    return html`<div class="cov" data-help="cosmological covariance: the 5×5 covariance of ω_b, ω_c, H0, n_s, σ8 whose draws give the ceiling's cosmological spread">
+      <label class="row"><input type="radio" name="cov" .checked=${live(!own)} @change=${() => {
+        if (!own) return;
+        const { cosmologyCovariance: _, ...rest } = c;
+        this.covMessage = '';
+        this.emit(rest);
+      }} />Use the preset's errors</label>
+      <label class="row"><input type="radio" name="cov" .checked=${live(!!own)} ?disabled=${!own} />${own ? `imported: ${own.source}` : 'an imported file'}</label>
+      <span class="note">${own ? html`in use: <strong>${own.source}</strong>` : html`from ${presetSource}`}</span>
+      <label class="button">Import covariance CSV…<input class="visually-hidden" type="file" accept=".csv,text/csv,text/plain" aria-label="Import a covariance CSV file" @change=${this.importCovariance} /></label>
+      ${this.covMessage ? html`<span class="err" role="alert">${this.covMessage}</span>` : nothing}
+    </div>`;
+  }
+
+  private async importCovariance(e: Event): Promise<void> {
+    const input = e.target as HTMLInputElement;
+    const f = input.files?.[0];
+    input.value = '';
+    if (!f || !this.choices) return;
+    try {
+      if (!this.covarianceParser) throw new Error('the covariance reader is not ready yet; try again in a moment');
+      const { text } = decodeText(new Uint8Array(await f.arrayBuffer()), f.name);
+      const cov = await this.covarianceParser(text, f.name);
+      this.covMessage = '';
+      if (this.choices) this.emit({ ...this.choices, cosmologyCovariance: cov });
+    } catch (err) {
+      this.covMessage = `covariance not imported (the previous one stays): ${(err as Error).message}`;
+    }
+  }
+
+  /** "Intrinsic UV slope β … = −2.45" for the headline IMF under the chosen SFH, or why there is none. */
+  private uvSlopeLine(c: PanelChoices) {
+    const u = this.uvSlope;
+    if (!u || u.imf !== headlineOf(c) || u.sfh !== c.sfh) return html`<p class="note uv" aria-live="polite">Intrinsic UV slope β of the headline IMF: computing…</p>`;
+    const what = `Intrinsic UV slope β (1300–2600 Å, dust-free) of ${u.imf} for the ${u.sfh} history at ${u.ageMyr} Myr${u.imf === 'top-heavy-cmb' ? ` (z = ${u.z})` : ''}`;
+    return html`<p class="note uv" aria-live="polite">${u.beta !== undefined ? html`${what}: <strong>${u.beta.toFixed(2)}</strong>` : `${what}: ${u.message}`}</p>`;
+  }
+
   render() {
     const c = this.choices;
     if (!c) return nothing;
@@ -219,7 +307,9 @@ export class ChoicePanel extends LitElement {
                 if (v !== undefined) this.emit({ ...c, deltaC: { kind: 'constant', value: v } });
               })
             : nothing}
+          ${this.growthField(c)}
         </div>
+        ${this.covarianceField(c)}
       </fieldset>
       <fieldset class="imfs">
         <legend>Stellar populations</legend>
@@ -278,6 +368,7 @@ export class ChoicePanel extends LitElement {
             : nothing}
         </div>
         ${this.err('sfh')}
+        ${this.uvSlopeLine(c)}
       </fieldset>
       <fieldset>
         <legend>Audit</legend>

@@ -1,35 +1,17 @@
 /**
  * How figure captions cite the methods behind a figure, as a paper would: one table for the mass functions,
  * the transfer functions, the IMFs and the cosmology presets (names as the core spells them), each to its
- * in-text citation. The core's `source` fields give journal, volume and page.
+ * in-text citation, taken from the core's one citation table (src/core/audit/citations.ts, which the
+ * Markdown report also uses, with journal, volume and page for its reference list).
  */
+import { CITATIONS } from '../core/audit/citations.js';
 
-export const MASS_FUNCTION_CITATIONS: Readonly<Record<string, string>> = Object.freeze({
-  'press-schechter': 'Press & Schechter (1974)',
-  'sheth-tormen': 'Sheth & Tormen (1999)',
-  tinker08: 'Tinker et al. (2008)',
-  reed07: 'Reed et al. (2007)',
-  jenkins01: 'Jenkins et al. (2001)',
-});
+const pick = (names: readonly string[]): Readonly<Record<string, string>> => Object.freeze(Object.fromEntries(names.map((n) => [n, CITATIONS[n].inText])));
 
-export const TRANSFER_CITATIONS: Readonly<Record<string, string>> = Object.freeze({
-  eh98: 'Eisenstein & Hu (1998)',
-  'eh98-nowiggle': 'Eisenstein & Hu (1998, no-wiggle form)',
-  bbks: 'Bardeen et al. (1986)',
-});
-
-export const IMF_CITATIONS: Readonly<Record<string, string>> = Object.freeze({
-  salpeter: 'Salpeter (1955)',
-  kroupa: 'Kroupa (2001)',
-  chabrier: 'Chabrier (2003)',
-  'top-heavy-flat': 'flat top-heavy (Baugh et al. 2005)',
-  'top-heavy-cmb': 'CMB-heated (after Chabrier 2003 and Jermyn et al. 2018)',
-});
-
-export const COSMOLOGY_CITATIONS: Readonly<Record<string, string>> = Object.freeze({
-  planck18: 'Planck Collaboration (2020)',
-  wmap9: 'Hinshaw et al. (2013)',
-});
+export const MASS_FUNCTION_CITATIONS = pick(['press-schechter', 'sheth-tormen', 'tinker08', 'reed07', 'jenkins01']);
+export const TRANSFER_CITATIONS = pick(['eh98', 'eh98-nowiggle', 'bbks']);
+export const IMF_CITATIONS = pick(['salpeter', 'kroupa', 'chabrier', 'top-heavy-flat', 'top-heavy-cmb']);
+export const COSMOLOGY_CITATIONS = pick(['planck18', 'wmap9']);
 
 /** In-text citation of a mass function. */
 export function citeMassFunction(name: string): string {

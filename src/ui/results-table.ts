@@ -1,7 +1,9 @@
 import { LitElement, css, html, nothing, unsafeCSS, type PropertyValues } from 'lit';
 import { customElement, property, state } from 'lit/decorators.js';
 import type { AuditResult, GalaxyRow } from '../core/audit/index.js';
+import { reconcileSentence, sampleSentence } from '../core/audit/report.js';
 import { citeImf } from './citations.js';
+import { plainFromMarkdown } from './markdown-plain.js';
 import { imfStyle, VERDICT_COLORS } from './palette.js';
 import { orderRows, verdictCounts, VERDICT_KEYS, type SortKey, type VerdictKey } from './results-order.js';
 import { mark, VERDICT_FILL } from './verdict-marks.js';
@@ -18,13 +20,14 @@ const EXPLAIN: Record<string, string> = {
   'IMF-driven': 'a top-heavy IMF brings it within budget',
   'redshift-driven': 'at the alternative or lower redshift it is within budget',
   'volume-driven': 'within budget once cosmic variance is included',
+  'Eddington-driven': 'within budget once the Eddington bias of the mass (scatter into a steep mass function) is corrected',
 };
-const ATTR_SHORT: Record<string, string> = { 'holds under every IMF': 'every IMF', 'IMF-driven': 'IMF', 'redshift-driven': 'redshift', 'volume-driven': 'volume' };
+const ATTR_SHORT: Record<string, string> = { 'holds under every IMF': 'every IMF', 'IMF-driven': 'IMF', 'redshift-driven': 'redshift', 'volume-driven': 'volume', 'Eddington-driven': 'Eddington' };
 const COLUMN_EXPLAIN: Record<string, string> = {
   id: 'galaxy id; Enter or a click shows it in the figures',
   z: 'redshift as given',
   verdict: 'headline verdict, under the headline IMF (the row’s imf_ref, else the first IMF compared), whose mark follows it',
-  attribution: 'what drives the tension: every IMF, IMF, redshift or volume',
+  attribution: 'what drives the tension: every IMF, IMF, redshift, volume or Eddington bias',
 };
 
 const f2 = (x: number): string => (x >= 999 ? '>999' : x >= 10 ? x.toFixed(0) : x >= 0.01 ? x.toFixed(2) : x.toExponential(1));
@@ -33,6 +36,8 @@ const idOf = (g: GalaxyRow): string => g.id || `row ${g.row}`;
 /** Height of a compact row and of one line of the details, px (fixed in the stylesheet below). */
 const ROW_H = 27;
 const LINE_H = 22;
+/** Lines of an expanded row under its IMF table, before the reconciliation: ceiling, Eddington and time budget, attribution. */
+const DETAIL_LINES = 3;
 
 /**
  * <results-table>: the audit per galaxy for samples of any size. One compact row per galaxy: the headline
@@ -64,6 +69,8 @@ export class ResultsTable extends LitElement {
   private offsets: Float64Array = new Float64Array(1);
   private win: RowWindow = { start: 0, end: 0, padTop: 0, padBottom: 0 };
   private imfs: string[] = [];
+  /** Lines of reconciliation sentences in every expanded row (the most any galaxy has; rows are of one height). */
+  private reconcileLines = 1;
   private resize?: ResizeObserver;
   private frame = 0;
 
@@ -150,12 +157,15 @@ export class ResultsTable extends LitElement {
 
   protected willUpdate(changed: PropertyValues): void {
     const r = this.result;
-    if (changed.has('result')) this.imfs = r ? [...new Set(r.galaxies.flatMap((g) => (g.imf ? Object.keys(g.imf) : [])))] : [];
+    if (changed.has('result')) {
+      this.imfs = r ? [...new Set(r.galaxies.flatMap((g) => (g.imf ? Object.keys(g.imf) : [])))] : [];
+      this.reconcileLines = r ? Math.max(1, ...r.galaxies.map((g) => g.reconcile?.length ?? 0)) : 1;
+    }
     if (['result', 'sortKey', 'sortDir', 'show', 'find'].some((k) => changed.has(k))) {
       this.view = r ? orderRows(r.galaxies, this.sortKey, this.sortDir, this.show, this.find) : [];
       if (this.active >= this.view.length) this.active = Math.max(0, this.view.length - 1);
     }
-    const detailH = LINE_H * (this.imfs.length + 2) + 9;
+    const detailH = LINE_H * (this.imfs.length + 1 + DETAIL_LINES + this.reconcileLines) + 9;
     this.offsets = rowOffsets(this.view.map((g) => this.rowH + (this.expanded.has(idOf(g)) ? detailH : 0)));
     this.style.setProperty('--detail-h', `${detailH - 1}px`);
     this.win = rowWindow(this.offsets, this.scrollPos, this.viewH);
@@ -290,20 +300,33 @@ export class ResultsTable extends LitElement {
   private details(g: GalaxyRow, cols: number) {
     const epsRef = this.result!.record.choices.epsRef;
     const c = g.ceiling!;
+    const e = g.eddington;
+    const t = g.time_budget;
+    const head = g.imf![g.headline_imf!];
+    const rec = g.reconcile ?? [];
+    const attr = g.attribution_detail ?? [];
     return html`<tr class="detail"><td colspan=${cols}><div class="d" role="group" aria-label=${`numbers of ${g.id}`}>
       <table>
         <tr><th scope="col">IMF</th><th scope="col">verdict</th><th scope="col" title="median log10 M* [Msun] (16–84%)">log M* [Msun] (16–84%)</th><th scope="col" title="median ε_req (5–95%) against the rarest halo">ε_req (5–95%)</th>
-          <th scope="col" title="median ε_req after the Eddington-bias correction">Eddington-corrected</th><th scope="col" title="median ε_req against the ceiling widened by cosmic variance">with cosmic variance</th><th scope="col">P(ε_req &gt; 1)</th><th scope="col">${`P(ε_req > ε_ref = ${epsRef})`}</th></tr>
+          <th scope="col" title="median ε_req after the Eddington-bias correction, and the verdict it gives">Eddington-corrected</th><th scope="col" title="median ε_req against the ceiling widened by cosmic variance">with cosmic variance</th><th scope="col">P(ε_req &gt; 1)</th>
+          <th scope="col" title="P(ε_req > 1) with each draw's ceiling also drawn from the cosmological parameters' covariance">P(ε_req &gt; 1), cosmology drawn</th><th scope="col">${`P(ε_req > ε_ref = ${epsRef})`}</th>
+          <th scope="col" title="stars formed over the baryons the ceiling halo accreted in the same time: median ratio, and P(ratio > 1)">time budget (P &gt; 1)</th></tr>
         ${this.imfs.map((imf) => {
           const v = g.imf![imf];
-          if (!v) return html`<tr><td>${imf}</td><td colspan="7">not compared</td></tr>`;
+          if (!v) return html`<tr><td>${imf}</td><td colspan="9">not compared</td></tr>`;
           const st = imfStyle(imf);
           return html`<tr><td title=${citeImf(imf)}>${mark(st.shape, st.color, VERDICT_FILL[v.verdict], 12)} ${imf}${imf === g.headline_imf ? ' (headline)' : ''}</td><td class=${`t-${vClass(v.verdict)}`}>${v.verdict}</td>
             <td>${v.log_mstar_median.toFixed(2)} (${v.log_mstar_p16.toFixed(2)}–${v.log_mstar_p84.toFixed(2)})</td><td>${f2(v.eps_required_median)} (${f2(v.eps_required_p05)}–${f2(v.eps_required_p95)})</td>
-            <td>${f2(v.eps_required_median_debiased)}</td><td>${f2(v.eps_required_median_cv)}</td><td>${v.p_over_budget.toFixed(2)}</td><td>${v.p_strained.toFixed(2)}</td></tr>`;
+            <td>${f2(v.eps_required_median_debiased)}${v.verdict_debiased ? html` <span class=${`t-${vClass(v.verdict_debiased)}`}>(${v.verdict_debiased})</span>` : nothing}</td><td>${f2(v.eps_required_median_cv)}</td><td>${v.p_over_budget.toFixed(2)}</td>
+            <td>${v.p_over_budget_cosmo !== undefined ? v.p_over_budget_cosmo.toFixed(2) : '—'}</td><td>${v.p_strained.toFixed(2)}</td>
+            <td>${v.time_budget_ratio_median !== undefined ? html`${f2(v.time_budget_ratio_median)} (${v.p_time_budget_over!.toFixed(2)})` : '—'}</td></tr>`;
         })}
       </table>
-      <p>Ceiling: M_halo = ${c.halo_mass_at_quantile_msun.toExponential(2)} Msun at the rarest-halo quantile in ${c.slice_z_min.toFixed(2)} < z < ${c.slice_z_max.toFixed(2)}; attribution: ${g.attribution!.length ? g.attribution!.join(', ') : 'none'}.</p>
+      <p>Ceiling: M_halo = ${c.halo_mass_at_quantile_msun.toExponential(2)} Msun at the rarest-halo quantile in ${c.slice_z_min.toFixed(2)} < z < ${c.slice_z_max.toFixed(2)}${c.log_mass_cosmo_sd_dex !== undefined ? `, spread ${c.log_mass_cosmo_sd_dex.toFixed(3)} dex (1σ) from the cosmological parameters' uncertainty` : ''}.</p>
+      <p>${e ? `Eddington bias: log M* lowered by ${e.shift_dex.toFixed(2)} dex (first order α σ² ln 10: ${e.shift_first_order_dex.toFixed(2)} dex; σ = ${e.sigma_dex} dex).` : 'Eddington bias: no mass error given.'}
+        ${t ? ` Time budget: ${t.formed_mass_msun.toExponential(2)} Msun of stars formed while the ceiling halo accreted ${t.accreted_baryons_msun.toExponential(2)} Msun of baryons (ratio ${f2(t.ratio)}, P(ratio > 1) = ${t.p_ratio_over_1.toFixed(2)}).` : ''}</p>
+      <p>Attribution: ${attr.length ? attr.map((a, k) => html`${k ? '; ' : ''}<span class="term" tabindex="-1" data-tip=${`${a.cause}: ${EXPLAIN[a.cause] ?? ''}`} title=${EXPLAIN[a.cause] ?? ''}>${a.cause}</span> (via ${a.via}: ${a.verdict_after} after)`) : g.attribution!.length ? g.attribution!.join(', ') : 'none'}.</p>
+      ${rec.length ? rec.map((rc) => html`<p class="rc">${reconcileSentence(rc, epsRef, head.eps_required_median).trim()}</p>`) : html`<p class="rc">Within budget: nothing to reconcile.</p>`}
     </div></td></tr>`;
   }
 
@@ -347,8 +370,9 @@ export class ResultsTable extends LitElement {
         </table>
       </div>
       <p class="explain" aria-live="polite">${this.explain || 'Tab to the table, then ↑/↓ to move, → to expand, Enter to show a galaxy in the figures; each column heading sorts.'}</p>
-      ${r.sample.bins.map((b) => html`<p>Sample, ${b.z_min} < z < ${b.z_max}: needs ε ≥ <strong>${f2(b.eps_required_rho)}</strong> (mass density) and ≥ <strong>${f2(b.eps_required_n)}</strong> (number density), ${b.galaxies} galaxies in ${b.volume_mpc3.toExponential(2)} Mpc³.</p>`)}
-      ${r.sample.file_errors.length ? html`<p role="alert">${r.sample.file_errors.join('; ')}</p>` : nothing}`;
+      ${r.sample.bins.map((b) => html`<p class="sample">Sample: ${plainFromMarkdown(sampleSentence(b, r.record.choices))}</p>`)}
+      ${r.sample.file_errors.length ? html`<p class="file-errors" role="alert">File errors: ${r.sample.file_errors.join('; ')}</p>` : nothing}
+      ${r.sample.file_warnings?.length ? html`<p class="file-warnings" role="status">File warnings: ${r.sample.file_warnings.join('; ')}</p>` : nothing}`;
   }
 }
 

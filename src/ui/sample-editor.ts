@@ -3,6 +3,7 @@ import { customElement, property, state } from 'lit/decorators.js';
 import { live } from 'lit/directives/live.js';
 import { repeat } from 'lit/directives/repeat.js';
 import type { RowProblem } from '../core/audit/index.js';
+import { decodeText } from '../core/audit/text-decoding.js';
 import { FieldHelp, helpStyles } from './field-help.js';
 import { appendWithHeader, readPasteBlock } from './paste-block.js';
 import { auditRowNumbers, csvFromGrid, gridFromCsv, isBlankRow, type SampleGrid } from './sample-table.js';
@@ -129,7 +130,8 @@ export class SampleEditor extends LitElement {
   private async importFile(file: File): Promise<void> {
     this.importError = '';
     try {
-      const text = await file.text();
+      // UTF-8 (BOM or not) and UTF-16 with a BOM, as the command line reads files; anything else is refused by name.
+      const { text } = decodeText(new Uint8Array(await file.arrayBuffer()), file.name);
       if (!text.trim()) {
         this.importError = `${file.name} is empty`;
         return;

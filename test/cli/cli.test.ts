@@ -181,4 +181,17 @@ describe('CLI errors: exit 2, one line naming the flag, no stack trace, no NaN',
     expect(bad.code).toBe(2);
     expect(bad.err).toMatch(/--growth/);
   }, 120000);
+  it('assess --map ID gives the map of one galaxy (the fifth figure’s data) in JSON and CSV; an unknown id exits 2', async () => {
+    const j = await run(['assess', '--demo', '--draws', '300', '--map', 'QF-322', '--format', 'json']);
+    expect(j.code, j.err).toBe(0);
+    const m = JSON.parse(j.out);
+    expect(m.id).toBe('QF-322');
+    expect(m.log10_eps_required).toHaveLength(m.slope.length);
+    expect(m.contours.map((c: { eps: number }) => c.eps)).toEqual([1, 0.3]);
+    const c = await run(['assess', '--demo', '--draws', '300', '--map', 'QF-322', '--format', 'csv']);
+    expect(c.out.trim().split('\n')).toHaveLength(1 + m.z.length * m.slope.length);
+    const bad = await run(['assess', '--demo', '--map', 'NOPE']);
+    expect(bad.code).toBe(2);
+    expect(bad.err).toMatch(/no row has the id "NOPE"/);
+  }, 120000);
 });

@@ -13,6 +13,9 @@ import {
   type ChoiceSpec,
   type Survey,
 } from '../../core/audit/index.js';
+import { disputedMap } from '../../core/audit/disputed-map.js';
+import { prepareAudit } from '../../core/audit/run-audit.js';
+import { toCsv, toJson } from '../output.js';
 import { DEMO_SAMPLE_CSV, DEMO_SURVEY } from '../../demo/demo-sample.js';
 import { COSMOLOGY_HELP, COSMOLOGY_OPTIONS, cosmologyFrom, format, num, parse } from '../args.js';
 import { CliError } from '../cli-error.js';
@@ -40,6 +43,8 @@ Survey and choices:
   --surveys FILE       CSV of named surveys (name,area_arcmin2,z_min,z_max) for the sample's survey column
   --headline-imf NAME  the IMF of the headline verdict for rows without imf_ref (default: the first
                        --imf; always compared)
+  --map ID             instead of the audit, the map of galaxy ID: median ε_req over redshift × IMF slope
+                       (custom:0.1:1.3:0.5:α:100) with the ε = 1 and ε_ref contours (json or csv)
   --cosmo-cov FILE     covariance of ω_b, ω_c, H0, n_s, σ8 for the ceiling's spread (CSV, header
                        param,omega_b_h2,omega_c_h2,h0,n_s,sigma8; default: the preset's 1σ errors)
 ${CHOICE_HELP}
@@ -53,6 +58,26 @@ ${STAR_HELP}
 ${HALO_HELP}
 
 ${COSMOLOGY_HELP}`;
+
+/**
+ * `--map ID`: the map of one galaxy (median ε_req over redshift × high-mass IMF slope, with the ε = 1 and
+ * ε_ref contours), the data of the page's fifth figure: JSON, or CSV as one row per grid cell.
+ */
+function mapOf(csv: string, choices: AuditChoices, id: string, fmt: 'json' | 'csv' | 'md'): string {
+  const prep = prepareAudit(csv, choices);
+  const index = prep.parsed.rows.findIndex((r) => (r.raw.id ?? '').trim() === id);
+  if (index < 0) throw new CliError(`--map: no row has the id "${id}"`);
+  if (prep.parsed.rows[index].status !== 'ok') throw new CliError(`--map: row ${prep.parsed.rows[index].row} ("${id}") is rejected: ${prep.parsed.rows[index].errors.map((e) => `${e.column}: ${e.reason}`).join('; ')}`);
+  let m;
+  try {
+    m = disputedMap(prep, index);
+  } catch (e) {
+    throw new CliError(`--map ${id}: ${(e as Error).message}`);
+  }
+  if (fmt === 'md') throw new CliError('--map gives json or csv');
+  if (fmt === 'csv') return toCsv(m.slope.flatMap((a, j) => m.z.map((z, i) => ({ z, imf_slope: a, log10_eps_required: m.log10_eps_required[j][i] }))));
+  return toJson(m);
+}
 
 const AREA = specByKey(SURVEY_SPECS, 'areaArcmin2');
 const Z_MIN = specByKey(SURVEY_SPECS, 'zMin');
@@ -83,6 +108,7 @@ export async function runAssess(argv: string[], out: (s: string) => void = () =>
       surveys: { type: 'string' },
       'headline-imf': { type: 'string' },
       'cosmo-cov': { type: 'string' },
+      map: { type: 'string' },
       ...CHOICE_OPTIONS,
       'z-bins': { type: 'string' },
       jobs: { type: 'string' },
@@ -181,6 +207,7 @@ export async function runAssess(argv: string[], out: (s: string) => void = () =>
     err(`note: --jobs ${jobs} capped at ${maxJobs()}, the cores available to this process (more threads than cores only slow the audit down)`);
     jobs = maxJobs();
   }
+  if (typeof values.map === 'string') return mapOf(csv, choices, values.map.trim(), fmt);
   await streamAudit(csv, choices, jobs, new URL(import.meta.url), fmt, out);
   return undefined;
 }

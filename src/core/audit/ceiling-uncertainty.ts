@@ -28,6 +28,8 @@ export interface CeilingUncertainty {
  */
 export function makeCeilingUncertainty(c: AuditChoices, areaArcmin2: number, zMin: number, zMax: number): CeilingUncertainty {
   const cov = auditCovariance(c);
+  // no parameter varies: no spread, and no ceiling needs building
+  if (cov.matrix.every((row) => row.every((v) => v === 0))) return { source: cov.source, sdDexAt: () => 0 };
   const z0 = Math.max(0.25, Math.floor(zMin * 2) / 2);
   const z1 = Math.max(z0 + 0.5, Math.ceil(zMax * 2) / 2);
   const zs: number[] = [];

@@ -1,4 +1,5 @@
-import { quantilesBySelection } from '../numeric/select.js';
+import { quantilesByBuckets, quantilesBySelection } from '../numeric/select.js';
+import { makeScratch, type Scratch } from '../numeric/scratch.js';
 import type { HaloModel } from '../halos/halo-model.js';
 import type { PopulationCache } from '../stars/population-cache.js';
 import type { MassToLightTable } from '../stars/mass-to-light.js';
@@ -7,7 +8,7 @@ import { makeAccretionHistory } from './accretion.js';
 import { attribute, type AttributionDetail } from './attribution.js';
 import type { AuditChoices } from './choices.js';
 import type { CeilingTable } from './ceiling.js';
-import { drawGalaxy, type GalaxyDraws } from './galaxy-draws.js';
+import { drawGalaxy, tabulatedBackground, type GalaxyDraws } from './galaxy-draws.js';
 import { imfStatistics, type ImfResult, type ImfStatistics, type SharedDraws } from './imf-statistics.js';
 import { rescaleBase, rescalePosition } from './imf-rescale.js';
 import { idSeed, makeRandom } from './random.js';
@@ -85,11 +86,12 @@ export interface AuditContext {
  * brightness row, base = the dust-corrected log10 L_ν at (age, rest λ); for a reported mass, the
  * mass rescaled at the same light (imf-rescale.ts).
  */
-function drawGrid(g: GalaxyInput, d: GalaxyDraws, valid: readonly number[], grid: MassToLightTable, ref: MassToLightTable | undefined): { x: Float64Array; y: Float64Array; base: Float64Array } {
+function drawGrid(g: GalaxyInput, d: GalaxyDraws, valid: ArrayLike<number>, grid: MassToLightTable, ref: MassToLightTable | undefined, scratch?: Scratch): { x: Float64Array; y: Float64Array; base: Float64Array } {
   const nv = valid.length;
-  const x = new Float64Array(nv);
-  const y = new Float64Array(nv);
-  const base = new Float64Array(nv);
+  const vec = (name: string): Float64Array => (scratch ? scratch.f64(name, nv) : new Float64Array(nv));
+  const x = vec('grid.x');
+  const y = vec('grid.y');
+  const base = vec('grid.base');
   for (let i = 0; i < nv; i++) {
     const k = valid[i];
     if (g.log10Mstar !== undefined) {
@@ -112,9 +114,9 @@ function drawGrid(g: GalaxyInput, d: GalaxyDraws, valid: readonly number[], grid
  * a stream of its own (seeded from the galaxy's stream seed with a fixed tag), so that the other draws
  * are the same with or without it.
  */
-function ceilingOffsets(seed: number, id: string, n: number, sdDex: number): Float64Array {
+function ceilingOffsets(seed: number, id: string, n: number, sdDex: number, scratch: Scratch): Float64Array {
   const rnd = makeRandom(idSeed(seed, id) ^ 0x6a09e667);
-  const out = new Float64Array(n);
+  const out = scratch.f64('ceiling.offset', n);
   for (let i = 0; i < n; i++) out[i] = sdDex * rnd.normal();
   return out;
 }
@@ -136,10 +138,11 @@ export function fixedRedshiftCells(ctx: AuditContext, g: GalaxyInput, z: number,
 }
 
 /** Indices of the draws whose band fell inside the model's rest range (all, for a reported mass). */
-function validDraws(g: GalaxyInput, d: GalaxyDraws): number[] {
-  const valid: number[] = [];
-  for (let k = 0; k < d.n; k++) if (g.log10Mstar !== undefined || Number.isFinite(d.log10Lnu[k])) valid.push(k);
-  return valid;
+function validDraws(g: GalaxyInput, d: GalaxyDraws, scratch?: Scratch): Int32Array {
+  const all = scratch ? scratch.i32('valid', d.n) : new Int32Array(d.n);
+  let nv = 0;
+  for (let k = 0; k < d.n; k++) if (g.log10Mstar !== undefined || Number.isFinite(d.log10Lnu[k])) all[nv++] = k;
+  return all.subarray(0, nv);
 }
 
 /**
@@ -179,10 +182,10 @@ function redshiftChecks(ctx: AuditContext, g: GalaxyInput, seed: number, headTab
 }
 
 /** Ceilings (log10 f_b M_halo,q, without and with cosmic variance) at each valid draw's redshift. */
-function drawCeilings(ceil: CeilingTable, fb: number, sigmaDm: number, z: Float64Array, valid: readonly number[]): { logCeil: Float64Array; logCeilCv: Float64Array } {
+function drawCeilings(ceil: CeilingTable, fb: number, sigmaDm: number, z: Float64Array, valid: Int32Array, scratch: Scratch): { logCeil: Float64Array; logCeilCv: Float64Array } {
   const nv = valid.length;
-  const logCeil = new Float64Array(nv);
-  const logCeilCv = new Float64Array(nv);
+  const logCeil = scratch.f64('ceiling.log', nv);
+  const logCeilCv = scratch.f64('ceiling.logCv', nv);
   const lfb = Math.log10(fb);
   for (let i = 0; i < nv; i++) {
     const zk = z[valid[i]];
@@ -194,14 +197,22 @@ function drawCeilings(ceil: CeilingTable, fb: number, sigmaDm: number, z: Float6
 }
 
 /** log10 f_b ΔM_h per valid draw over its star formation (undefined when z is not below the formation redshift). */
-function drawAccretion(ctx: AuditContext, g: GalaxyInput, d: GalaxyDraws, valid: readonly number[], logCeil: Float64Array): Float64Array | undefined {
+function drawAccretion(ctx: AuditContext, g: GalaxyInput, d: GalaxyDraws, valid: Int32Array, logCeil: Float64Array, scratch: Scratch): Float64Array | undefined {
   const { halo, choices } = ctx;
   if (!(g.z < choices.formationZ)) return undefined;
   const lfb = Math.log10(halo.baryonFraction);
-  const zs = valid.map((k) => d.z[k]);
-  const ages = valid.map((k) => d.log10AgeMyr[k]);
-  const halos = Array.from(logCeil, (v) => v - lfb);
-  return logAccretedBaryons(halo.background, makeAccretionHistory(halo.background), halo.baryonFraction, choices.formationZ, zs, ages, halos);
+  const nv = valid.length;
+  const zs = scratch.f64('accretion.z', nv);
+  const ages = scratch.f64('accretion.age', nv);
+  const halos = scratch.f64('accretion.halo', nv);
+  for (let i = 0; i < nv; i++) {
+    zs[i] = d.z[valid[i]];
+    ages[i] = d.log10AgeMyr[valid[i]];
+    halos[i] = logCeil[i] - lfb;
+  }
+  // ages and distances per draw from the draws' own tables (galaxy-draws.ts), not the direct integrals
+  const bg = tabulatedBackground(halo.background);
+  return logAccretedBaryons(bg, makeAccretionHistory(bg), halo.baryonFraction, choices.formationZ, zs, ages, halos);
 }
 
 function timeBudgetOf(ctx: AuditContext, g: GalaxyInput, head: ImfStatistics, acc: Float64Array | undefined, notes: string[]): TimeBudget | null {
@@ -220,36 +231,42 @@ function timeBudgetOf(ctx: AuditContext, g: GalaxyInput, head: ImfStatistics, ac
     ratio: r.time_budget_ratio_median,
     p_ratio_over_1: r.p_time_budget_over!,
     formed_mass_msun: head.formedMassMedianMsun,
-    accreted_baryons_msun: 10 ** quantilesBySelection(Float64Array.from(acc), [0.5])[0],
+    accreted_baryons_msun: 10 ** quantilesByBuckets(acc, acc.length, [0.5])[0],
     method:
       'per draw: stellar mass formed M*/(1 − R) (R of the population model at the drawn age) over f_b × the mass the ceiling halo accretes in ' +
       `[max(t(z) − age, t(z = ${fz})), t(z)] on its mean history (Fakhouri, Ma & Boylan-Kolchin 2010, integrated along M_h(z))`,
   };
 }
 
+/**
+ * Work vectors of the main draws, reused from galaxy to galaxy (nothing in a GalaxyAudit refers to
+ * them; the fixed-redshift checks and the what-it-would-take search draw into arrays of their own).
+ */
+const mainScratch = makeScratch();
+
 export function auditGalaxy(ctx: AuditContext, g: GalaxyInput, index: number): GalaxyAudit {
   const { choices, halo } = ctx;
   const fb = halo.baryonFraction;
   const n = choices.draws;
   const seed = idSeed(choices.seed, g.id);
-  const d = drawGalaxy(g, n, seed, halo.background);
+  const d = drawGalaxy(g, n, seed, halo.background, undefined, mainScratch);
   const ceil = ctx.ceilingFor(g.survey);
   const sigmaDm = ctx.sigmaDmFor(g.survey, g.z);
   const notes: string[] = [];
-  const valid = validDraws(g, d);
+  const valid = validDraws(g, d, mainScratch);
   if (d.excluded) notes.push(`${d.excluded} of ${n} draws put the observed band outside the model's rest range (Lyman-α–1 μm) and were left out`);
   if (valid.length < Math.max(20, 0.01 * n)) throw new RangeError(`row ${g.row} (${g.id}): almost every redshift draw puts the band outside the model's rest range (Lyman-α–1 μm)`);
   if (g.log10Mstar !== undefined && g.zAlt !== undefined && g.log10MstarAlt === undefined) {
     notes.push('no log_mstar_alt: the mass at z_alt was rescaled by the luminosity-distance ratio, D_L(z_alt)²/D_L(z)² · (1+z)/(1+z_alt)');
   }
-  const { logCeil, logCeilCv } = drawCeilings(ceil, fb, sigmaDm, d.z, valid);
+  const { logCeil, logCeilCv } = drawCeilings(ceil, fb, sigmaDm, d.z, valid, mainScratch);
   const { headline, imfs } = headlineAndCompared(g, choices);
   const tableOf = (imf: string): MassToLightTable => ctx.cache.table(imf, g.z, ctx.sfh);
   const refTable = g.imfRef ? tableOf(g.imfRef) : undefined;
-  const { x: gx, y: gy, base } = drawGrid(g, d, valid, tableOf(imfs[0]), refTable);
-  const acc = drawAccretion(ctx, g, d, valid, logCeil);
+  const { x: gx, y: gy, base } = drawGrid(g, d, valid, tableOf(imfs[0]), refTable, mainScratch);
+  const acc = drawAccretion(ctx, g, d, valid, logCeil, mainScratch);
   const cosmoSd = ctx.ceilingSdDexAt(g.survey, g.z);
-  const shared: SharedDraws = { n: valid.length, base, gx, gy, logCeil, logCeilCv, logAccretedBaryons: acc, cosmoOffset: ceilingOffsets(choices.seed, g.id, valid.length, cosmoSd) };
+  const shared: SharedDraws = { n: valid.length, base, gx, gy, logCeil, logCeilCv, logAccretedBaryons: acc, cosmoOffset: ceilingOffsets(choices.seed, g.id, valid.length, cosmoSd, mainScratch) };
   const sigmaDex = g.log10Mstar !== undefined ? g.log10MstarErr : 0.4 * g.magErr;
   const ed = { halo, z: g.z, sigmaDex, epsRef: choices.epsRef };
   const stats: Record<string, ImfStatistics> = {};

@@ -1,8 +1,7 @@
-import { quantilesBySelection } from '../numeric/select.js';
+import { quantilesByBuckets } from '../numeric/select.js';
 import type { HaloModel } from '../halos/halo-model.js';
 import type { MassToLightTable } from '../stars/mass-to-light.js';
 import { eddingtonFirstOrderShiftDex, eddingtonPosterior } from './eddington.js';
-import { logSurvivingAt } from './time-budget.js';
 import { verdictFor, type Verdict } from './verdict.js';
 
 export interface ImfResult {
@@ -66,38 +65,134 @@ export interface ImfStatistics {
  * M_h = 10^x/(f_b ε), −∞ outside the σ table. ε = the median ε_req clamped to [ε_ref, 1].
  */
 function hostPrior(e: EddingtonInputs, eps: number): (x: number) => number {
-  const fb = e.halo.baryonFraction;
+  const lnDn = lnMassFunctionAt(e);
+  const lfe = Math.log10(e.halo.baryonFraction * eps);
+  return (x) => lnDn(x - lfe);
+}
+
+/** Node spacing of the per-galaxy table of ln dn/dlnM, dex. */
+const PRIOR_STEP_DEX = 0.0025;
+
+/**
+ * ln dn/dlnM(10^lh, z) at the galaxy's redshift, −∞ outside the σ table: the halo model's own values on
+ * nodes 0.0025 dex apart (computed on first use, so a galaxy evaluates the mass function at a few hundred
+ * masses instead of at every point of every posterior grid), read with 4-point Lagrange interpolation
+ * (error ≈ (3/128) h⁴ |f⁗|, below 1e-12 in the posterior median here; common practice, no source). Linear in the
+ * first and last node interval. One table per EddingtonInputs object, i.e. per galaxy.
+ */
+const priorCache = new WeakMap<EddingtonInputs, (lh: number) => number>();
+function lnMassFunctionAt(e: EddingtonInputs): (lh: number) => number {
+  let f = priorCache.get(e);
+  if (f) return f;
   const lm = e.halo.table.log10M;
   const lo = lm[0];
   const hi = lm[lm.length - 1];
-  return (x) => {
-    const lh = x - Math.log10(fb * eps);
-    if (!(lh > lo && lh < hi)) return Number.NEGATIVE_INFINITY;
-    return Math.log(e.halo.dndlnM(10 ** lh, e.z));
+  const nNodes = Math.floor((hi - lo) / PRIOR_STEP_DEX) + 1;
+  const nodes = new Float64Array(nNodes).fill(Number.NaN);
+  const node = (i: number): number => {
+    let v = nodes[i];
+    if (v !== v) {
+      // the end nodes sit just inside the table so that the mass function is defined there
+      const lh = Math.min(Math.max(lo + i * PRIOR_STEP_DEX, lo + 1e-9), hi - 1e-9);
+      v = Math.log(e.halo.dndlnM(10 ** lh, e.z));
+      nodes[i] = v;
+    }
+    return v;
   };
+  f = (lh) => {
+    if (!(lh > lo && lh < hi)) return Number.NEGATIVE_INFINITY;
+    const t = (lh - lo) / PRIOR_STEP_DEX;
+    const i = Math.min(Math.floor(t), nNodes - 2);
+    const u = t - i;
+    if (i < 1 || i > nNodes - 3) return (1 - u) * node(i) + u * node(i + 1);
+    const a = node(i - 1);
+    const b = node(i);
+    const c = node(i + 1);
+    const d = node(i + 2);
+    // Lagrange weights on the nodes −1, 0, 1, 2 at u ∈ [0, 1)
+    return (-u * (u - 1) * (u - 2) * a) / 6 + ((u + 1) * (u - 1) * (u - 2) * b) / 2 - ((u + 1) * u * (u - 2) * c) / 2 + ((u + 1) * u * (u - 1) * d) / 6;
+  };
+  priorCache.set(e, f);
+  return f;
+}
+
+/** Scratch vectors reused from call to call (the statistics keep only scalars). */
+let scratch = new Float64Array(0);
+function scratchVectors(n: number): Float64Array[] {
+  if (scratch.length < 5 * n) scratch = new Float64Array(5 * Math.max(n, 1024));
+  return [0, 1, 2, 3, 4].map((k) => scratch.subarray(k * n, (k + 1) * n));
+}
+
+/**
+ * Each draw's cell in the M/L grid and its fractional position, computed once per set of shared draws
+ * and used by every IMF's table (they share the grid: gridPositionLog). Buffers are reused from galaxy
+ * to galaxy; the cache holds only the last set of draws.
+ */
+interface CellWeights {
+  readonly cell: Int32Array;
+  readonly ageIndex: Int32Array;
+  readonly tx: Float64Array;
+  readonly ty: Float64Array;
+}
+let cellBuf = { cell: new Int32Array(0), ageIndex: new Int32Array(0), tx: new Float64Array(0), ty: new Float64Array(0) };
+let cellFor: { d: SharedDraws; nAge: number; nLam: number } | undefined;
+function cellWeights(d: SharedDraws, tab: MassToLightTable): CellWeights {
+  const n = d.n;
+  if (cellFor && cellFor.d === d && cellFor.nAge === tab.nAge && cellFor.nLam === tab.nLam) return cellBuf;
+  if (cellBuf.cell.length < n) {
+    const m = Math.max(n, 1024);
+    cellBuf = { cell: new Int32Array(m), ageIndex: new Int32Array(m), tx: new Float64Array(m), ty: new Float64Array(m) };
+  }
+  const { nAge, nLam } = tab;
+  for (let k = 0; k < n; k++) {
+    const x = d.gx[k];
+    const y = d.gy[k];
+    const i = Math.min(Math.floor(x), nAge - 2);
+    const j = Math.min(Math.floor(y), nLam - 2);
+    cellBuf.cell[k] = i * nLam + j;
+    cellBuf.ageIndex[k] = i;
+    cellBuf.tx[k] = x - i;
+    cellBuf.ty[k] = y - j;
+  }
+  cellFor = { d, nAge, nLam };
+  return cellBuf;
 }
 
 /** Local slope α of dn/dlnM ∝ M^−α at M (centred difference over ±0.041 dex). */
 function localSlope(halo: HaloModel, m: number, z: number): number {
-  return -Math.log(halo.dndlnM(m * 1.1, z) / halo.dndlnM(m / 1.1, z)) / Math.log(1.21);
+  const a = -Math.log(halo.dndlnM(m * 1.1, z) / halo.dndlnM(m / 1.1, z)) / Math.log(1.21);
+  if (!Number.isFinite(a)) {
+    throw new RangeError(`the host halo M*/(f_b ε) ≈ ${m.toExponential(1)} Msun lies where the ${halo.model.label} mass function vanishes at z = ${z}: ΛCDM has no such haloes, so the mass cannot be audited or debiased`);
+  }
+  return a;
 }
 
 /** The statistics of one IMF over the shared draws (everything in log10: quantiles commute with 10^x). */
 export function imfStatistics(tab: MassToLightTable, d: SharedDraws, ed: EddingtonInputs, wantFormedMedian: boolean): ImfStatistics {
   const nv = d.n;
-  const lm = new Float64Array(nv);
-  const leps = new Float64Array(nv);
-  const lepsCv = new Float64Array(nv);
+  const [lm, leps, lepsCv, lr, lf] = scratchVectors(nv);
   const acc = d.logAccretedBaryons;
-  const lratio = acc ? new Float64Array(nv) : undefined;
-  const lformed = acc && wantFormedMedian ? new Float64Array(nv) : undefined;
+  const lratio = acc ? lr : undefined;
+  const lformed = acc && wantFormedMedian ? lf : undefined;
   let over = 0;
   let overCosmo = 0;
   let strained = 0;
   let tbOver = 0;
   const lRef = Math.log10(ed.epsRef);
+  const w = cellWeights(d, tab);
+  const L = tab.logLnu;
+  const S = tab.logSurv;
+  const nLam = tab.nLam;
+  const { cell, ageIndex, tx: txs, ty: tys } = w;
   for (let i = 0; i < nv; i++) {
-    const v = d.base[i] + tab.logMassToLightAt(d.gx[i], d.gy[i]);
+    // the table's own bilinear rule (MassToLightTable.logMassToLightAt), term for term, at the shared cell
+    const c = cell[i];
+    const a = ageIndex[i];
+    const tx = txs[i];
+    const ty = tys[i];
+    const lnu = (1 - tx) * ((1 - ty) * L[c] + ty * L[c + 1]) + tx * ((1 - ty) * L[c + nLam] + ty * L[c + nLam + 1]);
+    const surv = (1 - tx) * S[a] + tx * S[a + 1];
+    const v = d.base[i] + (surv - lnu);
     lm[i] = v;
     const e = v - d.logCeil[i];
     leps[i] = e;
@@ -106,23 +201,24 @@ export function imfStatistics(tab: MassToLightTable, d: SharedDraws, ed: Eddingt
     if (e > d.cosmoOffset[i]) overCosmo++;
     if (e > lRef) strained++;
     if (acc) {
-      const f = v - logSurvivingAt(tab, d.gx[i]);
+      // log10 (1 − R) at the draw's age: the same interpolation as logSurvivingAt
+      const f = v - surv;
       const r = f - acc[i];
       lratio![i] = r;
       if (lformed) lformed[i] = f;
       if (r > 0) tbOver++;
     }
   }
-  const [lm16, lmMed, lm84] = quantilesBySelection(lm, [0.16, 0.5, 0.84]);
-  const [le05, leMed, le95] = quantilesBySelection(leps, [0.05, 0.5, 0.95]);
+  const [lm16, lmMed, lm84] = quantilesByBuckets(lm, nv, [0.16, 0.5, 0.84]);
+  const [le05, leMed, le95] = quantilesByBuckets(leps, nv, [0.05, 0.5, 0.95]);
   const med = 10 ** leMed;
-  const medCv = 10 ** quantilesBySelection(lepsCv, [0.5])[0];
+  const medCv = 10 ** quantilesByBuckets(lepsCv, nv, [0.5])[0];
   const epsHost = Math.min(1, Math.max(med, ed.epsRef));
   const shift = eddingtonPosterior(hostPrior(ed, epsHost), lmMed, ed.sigmaDex).shiftMedianDex;
   const mHost = Math.min(Math.max(10 ** lmMed / (ed.halo.baryonFraction * epsHost), 1e3), 1e18);
   const alpha = localSlope(ed.halo, mHost, ed.z);
   const debiased = med * 10 ** -shift;
-  const ratioMed = lratio ? 10 ** quantilesBySelection(lratio, [0.5])[0] : undefined;
+  const ratioMed = lratio ? 10 ** quantilesByBuckets(lratio, nv, [0.5])[0] : undefined;
   const result: ImfResult = {
     verdict: verdictFor(med, ed.epsRef),
     log_mstar_median: lmMed,
@@ -145,6 +241,6 @@ export function imfStatistics(tab: MassToLightTable, d: SharedDraws, ed: Eddingt
     result,
     eddingtonSlopeAlpha: alpha,
     eddingtonFirstOrderDex: eddingtonFirstOrderShiftDex(alpha, ed.sigmaDex),
-    formedMassMedianMsun: lformed ? 10 ** quantilesBySelection(lformed, [0.5])[0] : undefined,
+    formedMassMedianMsun: lformed ? 10 ** quantilesByBuckets(lformed, nv, [0.5])[0] : undefined,
   };
 }

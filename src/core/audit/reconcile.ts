@@ -107,7 +107,7 @@ function zAxis(x: ReconcileInputs, lEps: number, lfb: number): Solved {
     const lc = lfb + ceiling.log10HaloMassAtQuantile(z);
     return medianLogEps(logMasses(d.base, d.gx, d.gy, x.headTable), () => lc) - lEps;
   };
-  return solveMonotone(at, zLow, zHigh, true, 1e-4, `it needs more than this ε even at z = ${zLow.toFixed(2)}, the lowest redshift searched`, `it fits up to z = ${zHigh.toFixed(2)}, the highest redshift searched`);
+  return solveMonotone(at, zLow, zHigh, true, 2e-3 / Math.max(1, zHigh), `it needs more than this ε even at z = ${zLow.toFixed(2)}, the lowest redshift searched`, `it fits up to z = ${zHigh.toFixed(2)}, the highest redshift searched`);
 }
 
 function slopeAxis(x: ReconcileInputs, lEps: number, logCeil: Float64Array): Solved {
@@ -180,12 +180,12 @@ function sigma8Axis(x: ReconcileInputs, lEps: number, lfb: number, lm: Float64Ar
   const need = medianLogEps(lm, (i) => logCeil[i]) - lEps; // dex the ceiling must rise
   const t = -Math.log(x.quantile);
   const z = x.g.z;
-  const lm1 = findRoot((l) => Math.log(sliceCount(x, z, 10 ** l, 1) / t), x.halo.table.log10M[0] + 0.1, x.halo.table.log10MMax - 0.5, 1e-10);
+  const lm1 = findRoot((l) => Math.log(sliceCount(x, z, 10 ** l, 1) / t), x.halo.table.log10M[0] + 0.1, x.halo.table.log10MMax - 0.5, 1e-7);
   const mTarget = 10 ** (lm1 + need);
   if (!(mTarget < 10 ** (x.halo.table.log10MMax - 0.5))) return { value: null, reason: 'the ceiling would have to exceed the mass table (1e19 Msun)' };
   const at = (ls: number): number => Math.log(t / sliceCount(x, z, mTarget, Math.exp(ls))); // > 0: too few haloes, does not fit
   // σ8 within the parameter table's range [0.1, 2]
-  const s = solveMonotone(at, Math.log(0.1 / s8), Math.log(2 / s8), false, 1e-9, 'even σ8 = 2 leaves the median ε_req above the target', 'it fits at every σ8 down to 0.1, the lowest searched');
+  const s = solveMonotone(at, Math.log(0.1 / s8), Math.log(2 / s8), false, 1e-6, 'even σ8 = 2 leaves the median ε_req above the target', 'it fits at every σ8 down to 0.1, the lowest searched');
   return s.value === null ? s : { value: s8 * Math.exp(s.value), reason: s.reason };
 }
 
@@ -196,7 +196,7 @@ function areaAxis(x: ReconcileInputs, lEps: number, lfb: number, lm: Float64Arra
     const ceil = x.ceiling.log10HaloMassAtCountFn((-Math.log(x.quantile) * a0) / Math.exp(la));
     return medianLogEps(lm, (i) => lfb + ceil(x.z[i])) - lEps;
   };
-  const s = solveMonotone(at, Math.log(1e-4), Math.log(FULL_SKY_ARCMIN2), false, 1e-6, 'not even the whole sky holds a halo that large at this quantile', 'it fits in any field of 1e-4 arcmin² or more, the smallest searched');
+  const s = solveMonotone(at, Math.log(1e-4), Math.log(FULL_SKY_ARCMIN2), false, 1e-5, 'not even the whole sky holds a halo that large at this quantile', 'it fits in any field of 1e-4 arcmin² or more, the smallest searched');
   return s.value === null ? s : { value: Math.exp(s.value) };
 }
 

@@ -118,10 +118,13 @@ export function prepareAudit(sampleCsv: string, given: AuditChoices): PreparedAu
     areaFor: (name) => surveyOf(name).areaArcmin2,
     ceilingSdDexAt: (name, z) => {
       const s = surveyOf(name);
-      const key = JSON.stringify([s.areaArcmin2, choices.quantile, choices.sliceDz, choices.cosmologyCovariance ?? null, zLowest, zHighest]);
+      // The z span is whole numbers around the survey and the sample, so that edits inside it reuse the spread.
+      const z0 = Math.max(0.25, Math.floor(Math.min(zLowest, s.zMin)) - 1);
+      const z1 = Math.min(30, Math.ceil(Math.max(zHighest, s.zMax)) + 1);
+      const key = JSON.stringify([s.areaArcmin2, choices.quantile, choices.sliceDz, choices.cosmologyCovariance ?? null, z0, z1]);
       let u = env.spreads.get(key);
       if (!u) {
-        u = makeCeilingUncertainty(choices, s.areaArcmin2, zLowest, zHighest);
+        u = makeCeilingUncertainty(choices, s.areaArcmin2, z0, z1);
         if (env.spreads.size > 16) env.spreads.clear();
         env.spreads.set(key, u);
       }

@@ -1,0 +1,8 @@
+#!/usr/bin/env node
+// Bundles test/bench/profile-audit.ts and runs it in this process (see that file).
+import { pathToFileURL } from 'node:url';
+import { bundleForNode } from '../../src/cli/bundle.mjs';
+
+const out = 'node_modules/.cache/baryon-audit/profile-audit.mjs';
+await bundleForNode('test/bench/profile-audit.ts', out);
+await import(pathToFileURL(out).href);

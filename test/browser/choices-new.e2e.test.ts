@@ -1,0 +1,82 @@
+import { expect } from 'chai';
+
+/**
+ * The growth choice, the cosmological covariance (preset's errors or an imported CSV) and the headline IMF's
+ * intrinsic UV slope on the page, end to end on the built bundle: choices reach the record and the saved
+ * state; a bad covariance file is refused naming line and column; β comes from the worker.
+ */
+await import(new URL('../../public/app.js', import.meta.url).href);
+
+type App = HTMLElement & { auditController?: { state: { status: string; response?: { result?: { record: { choices: Record<string, unknown> } } } } } };
+
+async function until<T>(what: string, f: () => T | undefined | false | null, timeout = 50000): Promise<T> {
+  const t0 = performance.now();
+  for (;;) {
+    const v = f();
+    if (v) return v;
+    if (performance.now() - t0 > timeout) throw new Error(`timed out waiting until ${what}`);
+    await new Promise((r) => setTimeout(r, 50));
+  }
+}
+const panel = (app: App) => app.shadowRoot!.querySelector('choice-panel')!.shadowRoot!;
+const recordChoices = (app: App) => app.auditController?.state.response?.result?.record.choices;
+const saved = () => JSON.parse(localStorage.getItem('baryon-audit:state') ?? 'null');
+
+function pickFile(input: HTMLInputElement, text: string, name: string): void {
+  const dt = new DataTransfer();
+  dt.items.add(new File([text], name, { type: 'text/csv' }));
+  input.files = dt.files;
+  input.dispatchEvent(new Event('change'));
+}
+
+describe('new choices on the page', () => {
+  let app: App;
+  before(async () => {
+    localStorage.clear();
+    app = document.createElement('baryon-audit-app') as App;
+    document.body.append(app);
+    await until('the first audit', () => recordChoices(app));
+  });
+  after(() => app.remove());
+
+  it('shows the headline IMF’s intrinsic UV slope, computed in the worker (Salpeter, constant SFH, 100 Myr: the stars command gives −2.02)', async () => {
+    const line = await until('β is shown', () => panel(app).querySelector('p.uv strong'));
+    expect(panel(app).querySelector('p.uv')!.textContent).to.contain('1300–2600 Å');
+    expect(panel(app).querySelector('p.uv')!.textContent).to.contain('salpeter');
+    expect(line.textContent).to.equal('-2.02');
+  });
+
+  it('chooses the growth factor with radiation: the record and the saved state keep it', async () => {
+    const sel = panel(app).querySelector('select[aria-label="growth factor"]') as HTMLSelectElement;
+    expect([...sel.options].map((o) => o.value)).to.deep.equal(['matter-lambda', 'with-radiation']);
+    expect(sel.value).to.equal('matter-lambda');
+    sel.value = 'with-radiation';
+    sel.dispatchEvent(new Event('change'));
+    await until('the audit with radiation in the growth', () => recordChoices(app)?.growth === 'with-radiation' && app.auditController!.state.status === 'done');
+    await until('the saved state keeps the growth choice', () => saved()?.choices?.growth === 'with-radiation');
+    sel.value = 'matter-lambda';
+    sel.dispatchEvent(new Event('change'));
+    await until('the default again, without the key', () => recordChoices(app) && !('growth' in recordChoices(app)!) && app.auditController!.state.status === 'done');
+  });
+
+  it('imports a covariance CSV into the choices, refuses a bad one naming line and column, and goes back to the preset’s errors', async () => {
+    expect(panel(app).querySelector('.cov')!.textContent).to.contain('Planck');
+    const input = panel(app).querySelector('input[aria-label="Import a covariance CSV file"]') as HTMLInputElement;
+    const good = 'param,omega_b_h2,omega_c_h2,h0,n_s,sigma8\nomega_b_h2,2.25e-8,0,0,0,0\nomega_c_h2,0,1.44e-6,0,0,0\nh0,0,0,0.2916,0,0\nn_s,0,0,0,1.6e-5,0\nsigma8,0,0,0,0,3.6e-5\n';
+    pickFile(input, good, 'invented-cov.csv');
+    await until('the audit with the imported covariance', () => (recordChoices(app)?.cosmologyCovariance as { source?: string } | undefined)?.source?.includes('invented-cov.csv') && app.auditController!.state.status === 'done');
+    const m = (recordChoices(app)!.cosmologyCovariance as { matrix: number[][] }).matrix;
+    expect(m[2][2]).to.equal(0.2916);
+    expect(panel(app).querySelector('.cov')!.textContent).to.contain('invented-cov.csv');
+    pickFile(input, good.replace('0,0,0.2916,0,0', '0,0,abc,0,0'), 'broken-cov.csv');
+    const msg = await until('the refusal', () => panel(app).querySelector('.cov .err'));
+    expect(msg.textContent).to.contain('line 4');
+    expect(msg.textContent).to.contain('column h0');
+    expect(msg.textContent).to.contain('"abc"');
+    expect((recordChoices(app)!.cosmologyCovariance as { source: string }).source).to.contain('invented-cov.csv'); // the previous one stays
+    const preset = panel(app).querySelector('.cov input[type=radio]') as HTMLInputElement;
+    preset.checked = true;
+    preset.dispatchEvent(new Event('change'));
+    await until('the preset’s errors again', () => recordChoices(app) && !('cosmologyCovariance' in recordChoices(app)!) && app.auditController!.state.status === 'done');
+  });
+});

@@ -1,0 +1,69 @@
+import { describe, expect, it } from 'vitest';
+import { imfStatistics, type SharedDraws } from '../../../src/core/audit/imf-statistics.js';
+import { eddingtonPosterior } from '../../../src/core/audit/eddington.js';
+import { logSurvivingAt } from '../../../src/core/audit/time-budget.js';
+import { PLANCK18 } from '../../../src/core/cosmology/index.js';
+import { makeHaloModel } from '../../../src/core/halos/index.js';
+import { quantileSorted } from '../../../src/core/numeric/index.js';
+import { makePopulationCache, parseSfh } from '../../../src/core/stars/index.js';
+
+// The per-IMF statistics against the definitions computed the plain way: the table's own M/L lookup
+// (logMassToLightAt, logSurvivingAt) at each draw, type-7 quantiles of the sorted values (Hyndman &
+// Fan 1996), counts, and the Eddington posterior with the halo model's dn/dlnM itself.
+describe('imfStatistics: the shared-cell M/L rule, bucket quantiles and tabulated prior equal the plain computation', () => {
+  const cache = makePopulationCache();
+  const sfh = parseSfh('constant');
+  const halo = makeHaloModel({ cosmology: PLANCK18, transfer: { kind: 'eh98' }, massFunction: 'sheth-tormen', deltaC: { kind: 'constant', value: 1.686 } });
+  const n = 3000;
+  let s = 7;
+  const u = (): number => ((s = (Math.imul(s, 1664525) + 1013904223) >>> 0) / 2 ** 32);
+  const grid = cache.table('salpeter', 9, sfh);
+  const d: SharedDraws = {
+    n,
+    base: Float64Array.from({ length: n }, () => 28.3 + 0.4 * u()),
+    gx: Float64Array.from({ length: n }, () => (grid.nAge - 1) * u()),
+    gy: Float64Array.from({ length: n }, () => 2 + 0.5 * u()),
+    logCeil: Float64Array.from({ length: n }, () => 9.6 + 0.2 * u()),
+    logCeilCv: Float64Array.from({ length: n }, () => 9.8 + 0.2 * u()),
+    logAccretedBaryons: Float64Array.from({ length: n }, () => 9 + u()),
+    cosmoOffset: Float64Array.from({ length: n }, () => 0.1 * (u() - 0.5)),
+  };
+  const sorted = (f: (i: number) => number): Float64Array => Float64Array.from({ length: n }, (_, i) => f(i)).sort();
+  for (const imf of ['salpeter', 'top-heavy-flat']) {
+    it(`${imf}: percentiles, probabilities, time budget and Eddington shift`, () => {
+      const tab = cache.table(imf, 9, sfh);
+      const ed = { halo, z: 9, sigmaDex: 0.1, epsRef: 0.3 };
+      const st = imfStatistics(tab, d, ed, true);
+      const lm = (i: number): number => d.base[i] + tab.logMassToLightAt(d.gx[i], d.gy[i]);
+      const lmS = sorted(lm);
+      const leS = sorted((i) => lm(i) - d.logCeil[i]);
+      const r = st.result;
+      expect(r.log_mstar_p16).toBe(quantileSorted(lmS, 0.16));
+      expect(r.log_mstar_median).toBe(quantileSorted(lmS, 0.5));
+      expect(r.log_mstar_p84).toBe(quantileSorted(lmS, 0.84));
+      expect(r.eps_required_median).toBe(10 ** quantileSorted(leS, 0.5));
+      expect(r.eps_required_p95).toBe(10 ** quantileSorted(leS, 0.95));
+      expect(r.eps_required_median_cv).toBe(10 ** quantileSorted(sorted((i) => lm(i) - d.logCeilCv[i]), 0.5));
+      let over = 0;
+      let cosmo = 0;
+      let tb = 0;
+      for (let i = 0; i < n; i++) {
+        const e = lm(i) - d.logCeil[i];
+        if (e > 0) over++;
+        if (e > d.cosmoOffset[i]) cosmo++;
+        if (lm(i) - logSurvivingAt(tab, d.gx[i]) - d.logAccretedBaryons![i] > 0) tb++;
+      }
+      expect(r.p_over_budget).toBe(over / n);
+      expect(r.p_over_budget_cosmo).toBe(cosmo / n);
+      expect(r.p_time_budget_over).toBe(tb / n);
+      expect(r.time_budget_ratio_median).toBe(10 ** quantileSorted(sorted((i) => lm(i) - logSurvivingAt(tab, d.gx[i]) - d.logAccretedBaryons![i]), 0.5));
+      expect(st.formedMassMedianMsun).toBe(10 ** quantileSorted(sorted((i) => lm(i) - logSurvivingAt(tab, d.gx[i])), 0.5));
+      // the prior from the per-galaxy node table against dn/dlnM itself
+      const epsHost = Math.min(1, Math.max(r.eps_required_median, 0.3));
+      const lfe = Math.log10(halo.baryonFraction * epsHost);
+      const exact = eddingtonPosterior((x) => Math.log(halo.dndlnM(10 ** (x - lfe), 9)), r.log_mstar_median, 0.1).shiftMedianDex;
+      expect(Math.abs(r.eddington_shift_dex - exact)).toBeLessThan(1e-12);
+      expect(r.eddington_shift_dex).toBeGreaterThan(0);
+    });
+  }
+});
