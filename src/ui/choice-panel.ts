@@ -1,4 +1,5 @@
 import { LitElement, css, html, noChange, nothing, type PropertyValues } from 'lit';
+import { hasProblems, tellValidity, withProblem, type FieldProblems } from './field-problems.js';
 import { customElement, property, state } from 'lit/decorators.js';
 import { live } from 'lit/directives/live.js';
 import type { AuditChoices } from '../core/audit/index.js';
@@ -58,7 +59,7 @@ export class ChoicePanel extends LitElement {
   /** Reads a covariance CSV (the core's parser, run in the worker); rejects with a message naming line and column. */
   @property({ attribute: false }) covarianceParser?: (text: string, name: string) => Promise<ParamCovariance>;
   @state() private covMessage = '';
-  @state() private problems: Record<string, string> = {};
+  @state() private problems: FieldProblems = {};
   private lastSent?: PanelChoices;
   private readonly help = new FieldHelp(this);
 
@@ -92,20 +93,20 @@ export class ChoicePanel extends LitElement {
 
   protected willUpdate(changed: PropertyValues<this>): void {
     // Choices from outside (undo, import, demo, link) replace whatever was being typed.
-    if (changed.has('choices') && this.choices !== this.lastSent && Object.values(this.problems).some(Boolean)) {
+    if (changed.has('choices') && this.choices !== this.lastSent && hasProblems(this.problems)) {
       this.problems = {};
       this.tell();
     }
   }
 
   private tell(): void {
-    const problems = Object.entries(this.problems).filter(([, m]) => m).map(([field, message]) => ({ field, message }));
-    this.dispatchEvent(new CustomEvent('choices-validity', { detail: { source: 'choices', problems }, bubbles: true, composed: true }));
+    tellValidity(this, 'choices', this.problems);
   }
 
   private setProblem(field: string, message: string): void {
-    if ((this.problems[field] ?? '') === message) return;
-    this.problems = { ...this.problems, [field]: message };
+    const next = withProblem(this.problems, field, message);
+    if (next === this.problems) return;
+    this.problems = next;
     this.tell();
   }
 

@@ -1,4 +1,5 @@
 import { LitElement, css, html, noChange, nothing, type PropertyValues } from 'lit';
+import { hasProblems, tellValidity, withProblem, type FieldProblems } from './field-problems.js';
 import { customElement, property, state } from 'lit/decorators.js';
 import { live } from 'lit/directives/live.js';
 import { validateSurvey, type Survey } from '../core/audit/survey.js';
@@ -29,7 +30,7 @@ const SURVEY_FIELDS: { key: SurveyKey; label: string; doc: string }[] = [
 @customElement('survey-editor')
 export class SurveyEditor extends LitElement {
   @property({ attribute: false }) value?: SurveyChoices;
-  @state() private problems: Record<string, string> = {};
+  @state() private problems: FieldProblems = {};
   private lastSent?: SurveyChoices;
   private readonly help = new FieldHelp(this);
 
@@ -57,20 +58,20 @@ export class SurveyEditor extends LitElement {
     const v = this.value;
     const s = this.lastSent;
     const outside = !!v && (!s || v.survey !== s.survey || v.surveys !== s.surveys || v.zBins !== s.zBins);
-    if (changed.has('value') && outside && Object.values(this.problems).some(Boolean)) {
+    if (changed.has('value') && outside && hasProblems(this.problems)) {
       this.problems = {};
       this.tell();
     }
   }
 
   private tell(): void {
-    const problems = Object.entries(this.problems).filter(([, m]) => m).map(([field, message]) => ({ field, message }));
-    this.dispatchEvent(new CustomEvent('choices-validity', { detail: { source: 'survey', problems }, bubbles: true, composed: true }));
+    tellValidity(this, 'survey', this.problems);
   }
 
   private setProblem(field: string, message: string): void {
-    if ((this.problems[field] ?? '') === message) return;
-    this.problems = { ...this.problems, [field]: message };
+    const next = withProblem(this.problems, field, message);
+    if (next === this.problems) return;
+    this.problems = next;
     this.tell();
   }
 
