@@ -76,18 +76,20 @@ let mapPrep: { key: string; prep: ReturnType<typeof prepareAudit> } | undefined;
 
 /**
  * Results of rows already audited under the same choices, keyed by (choices, row number, cells): an
- * edit to one cell re-audits one row. Safe because a row's numbers depend only on these (its random
- * stream is seeded by (seed, row number)). Bounded; cleared when full.
+ * edit to one cell re-audits one row. Safe because an accepted row's numbers depend only on these (its
+ * random stream is seeded by (seed, id); the row number is named in the output). Rejected rows are not
+ * kept: a repeated id's rejection depends on the other rows. Bounded; cleared when full.
  */
 const rowCache = new Map<string, GalaxyRow>();
 const curveCache = new Map<string, CeilingCurves>();
 
 function cachedRow(prep: ReturnType<typeof prepareAudit>, choicesKey: string, i: number): GalaxyRow {
-  const r = prep.parsed.rows[i];
+  const r = prep.parsed.rowAt(i);
+  if (r.status !== 'ok') return auditRow(prep, i, r);
   const key = `${choicesKey}|${r.row}|${JSON.stringify(r.raw)}`;
   let g = rowCache.get(key);
   if (!g) {
-    g = auditRow(prep, i);
+    g = auditRow(prep, i, r);
     if (rowCache.size > 20000) rowCache.clear();
     rowCache.set(key, g);
   }
@@ -160,7 +162,7 @@ export const auditApi = {
   async run(req: AuditRequest, onProgress?: (done: number, total: number) => void): Promise<AuditResponse> {
     const t0 = performance.now();
     const prep = prepareAudit(req.csv, req.choices);
-    const n = prep.parsed.rows.length;
+    const n = prep.parsed.rowCount;
     const rows = await auditIndices(req, prep, Array.from({ length: n }, (_, i) => i), onProgress && ((d) => onProgress(d, n)));
     if (rows === 'cancelled') return { id: req.id, status: 'cancelled', elapsedMs: performance.now() - t0 };
     return respond(req, prep, rows.map(([, g]) => g), performance.now() - t0);
@@ -174,7 +176,7 @@ export const auditApi = {
    */
   async runRows(req: AuditRequest, part: { index: number; of: number }, onProgress?: (done: number, total: number) => void, keep = false): Promise<string | number | 'cancelled'> {
     const prep = prepareAudit(req.csv, req.choices);
-    const n = prep.parsed.rows.length;
+    const n = prep.parsed.rowCount;
     const indices = dealRows(n, part.of)[part.index] ?? [];
     onProgress?.(0, n);
     const rows = await auditIndices(req, prep, indices, onProgress && ((d) => onProgress(d, n)));
@@ -186,7 +188,7 @@ export const auditApi = {
   /** Pool leader: the sample level, figures and reports from its own rows and the other members' JSON parts. */
   finish(req: AuditRequest, parts: string[], elapsedMs: number): AuditResponse {
     const prep = prepareAudit(req.csv, req.choices);
-    const galaxies: GalaxyRow[] = new Array(prep.parsed.rows.length);
+    const galaxies: GalaxyRow[] = new Array(prep.parsed.rowCount);
     const own = kept?.id === req.id ? kept.rows : [];
     kept = undefined;
     for (const [i, g] of own) galaxies[i] = g;

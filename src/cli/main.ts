@@ -8,8 +8,19 @@ import { runMass } from './commands/mass.js';
 import { runAssess } from './commands/assess.js';
 import './parallel-audit.js';
 
+/**
+ * Where a command writes: one line per call; `write`, when present, writes text as it is (no line
+ * break added), for an output line too long to build whole (the record's sample text).
+ */
+export interface LineOut {
+  (line: string): void;
+  write?: (text: string) => void;
+}
+
 /** A subcommand returns its output, or writes it itself through `out` (streaming) and returns undefined. */
-type Command = (argv: string[], out: (s: string) => void, err: (s: string) => void) => string | undefined | Promise<string | undefined>;
+type Command = (argv: string[], out: LineOut, err: (s: string) => void) => string | undefined | Promise<string | undefined>;
+
+const stdoutLines: LineOut = Object.assign((s: string) => void process.stdout.write(s + '\n'), { write: (s: string) => void process.stdout.write(s) });
 
 const COMMANDS: Record<string, Command> = {
   cosmo: runCosmo,
@@ -35,7 +46,7 @@ export function registerCommand(name: string, run: Command): void {
 }
 
 /** Runs one command line; returns the exit code (0 ok, 2 unusable input, 1 internal error). */
-export async function main(argv: string[], out: (s: string) => void = (s) => process.stdout.write(s + '\n'), err: (s: string) => void = (s) => process.stderr.write(s + '\n')): Promise<number> {
+export async function main(argv: string[], out: LineOut = stdoutLines, err: (s: string) => void = (s) => process.stderr.write(s + '\n')): Promise<number> {
   const [cmd, ...rest] = argv;
   if (!cmd || cmd === '--help' || cmd === '-h' || cmd === 'help') {
     out(MAIN_HELP.replace(/\n  rarest.*$/m, (l) => l + extraHelp()));

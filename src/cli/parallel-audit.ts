@@ -34,7 +34,7 @@ if (!isMainThread && (workerData as Job | undefined)?.kind === 'baryon-audit-row
   void (async () => {
     try {
       const prep = prepareAudit(job.csv, job.choices);
-      const n = prep.parsed.rows.length;
+      const n = prep.parsed.rowCount;
       for (const b of job.batches) {
         while (credits === 0) await new Promise<void>((r) => (wake = r));
         credits--;
@@ -58,7 +58,7 @@ export function defaultJobs(rows: number): number {
 
 /** Every row's result in file order; `jobs` threads (one: this thread, no workers). */
 export async function* auditRowsInOrder(prep: PreparedAudit, jobs: number, entry: URL): AsyncGenerator<GalaxyRow> {
-  const n = prep.parsed.rows.length;
+  const n = prep.parsed.rowCount;
   const nb = Math.ceil(n / BATCH);
   const k = Math.max(1, Math.min(jobs, nb));
   if (k <= 1) {

@@ -3,35 +3,23 @@ import {
   auditCsvHeader,
   auditCsvRow,
   auditMarkdown,
+  auditRecord,
+  AUDIT_CAUTION,
   csvLayoutOf,
   finishAudit,
+  newTally,
   prepareAudit,
+  sampleLevel,
+  tallyRow,
   type AuditChoices,
+  type AuditRecord,
   type GalaxyRow,
 } from '../core/audit/index.js';
 import { once } from 'node:events';
 import { CliError } from './cli-error.js';
 import { assertFinite } from './output.js';
 import { auditRowsInOrder } from './parallel-audit.js';
-
-/**
- * What the sample level needs of a galaxy (finishAudit reads its status, survey, z and headline
- * masses); the rest of each row is written out and dropped, so memory stays small per row.
- */
-function slim(g: GalaxyRow): GalaxyRow {
-  const h = g.headline_imf;
-  return {
-    row: g.row,
-    lines: g.lines,
-    line_end: g.line_end,
-    id: g.id,
-    status: g.status,
-    errors: [],
-    survey: g.survey,
-    input: { z: g.input.z ?? '' },
-    ...(h && g.imf ? { headline_imf: h, imf: { [h]: g.imf[h] } } : {}),
-  } as GalaxyRow;
-}
+import type { LineOut } from './main.js';
 
 /**
  * Waits while stdout holds more than 4 MB not yet written (a pipe or /dev/null is written
@@ -43,52 +31,77 @@ async function backpressure(): Promise<void> {
 
 const indent = (json: string, pad: string): string => json.replace(/\n/g, `\n${pad}`);
 
+/** Characters of the sample written per piece of the record's sample_csv. */
+const TEXT_PIECE = 1 << 20;
+
+/**
+ * The record as `JSON.stringify(record, null, 2)` indented by two spaces gives it. With `out.write`
+ * (standard output) it is written in pieces: the sample's text (as large as the file) is escaped a
+ * piece at a time, never copied whole; a piece never ends between the halves of a surrogate pair.
+ */
+async function writeRecord(rec: AuditRecord, out: LineOut): Promise<void> {
+  const write = out.write;
+  if (!write) {
+    out(`  "record": ${indent(JSON.stringify(rec, null, 2), '  ')}\n}`);
+    return;
+  }
+  const head = { tool: rec.tool, version: rec.version, format: rec.format };
+  write(`  "record": ${indent(JSON.stringify(head, null, 2), '  ').slice(0, -4)},\n    "sample_csv": "`);
+  const text = rec.sample_csv;
+  for (let i = 0; i < text.length; ) {
+    let j = Math.min(text.length, i + TEXT_PIECE);
+    const c = text.charCodeAt(j - 1);
+    if (j < text.length && c >= 0xd800 && c <= 0xdbff) j--;
+    write(JSON.stringify(text.slice(i, j)).slice(1, -1));
+    i = j;
+    await backpressure();
+  }
+  write(`",\n    "choices": ${indent(JSON.stringify(rec.choices, null, 2), '    ')}\n  }\n}\n`);
+}
+
 /**
  * Runs the audit and writes it through `out` as it goes: JSON and CSV one galaxy per line, the
- * sample level and the record at the end (Markdown, a report for people, is written whole).
+ * sample level and the record at the end (Markdown, a report for people, is written whole). No
+ * row is kept: the sample is indexed (core/audit/sample.ts), each row read again when audited, and
+ * the sample level keeps only its members' masses (SampleTally), so memory stays flat in the rows.
  * A sample without a usable header is a CliError (exit 2); bad choices a RangeError (exit 2).
  */
-export async function streamAudit(csv: string, choices: AuditChoices, jobs: number, entry: URL, fmt: 'json' | 'csv' | 'md', out: (s: string) => void): Promise<void> {
+export async function streamAudit(csv: string, choices: AuditChoices, jobs: number, entry: URL, fmt: 'json' | 'csv' | 'md', out: LineOut): Promise<void> {
   const prep = prepareAudit(csv, choices);
   const parsed = prep.parsed;
   if (parsed.fatal) throw new CliError(`sample: ${parsed.fatal}`);
-  const kept: GalaxyRow[] = [];
   const rows = auditRowsInOrder(prep, jobs, entry);
   if (fmt === 'md') {
+    const kept: GalaxyRow[] = [];
     for await (const g of rows) kept.push(g);
     out(auditMarkdown(finishAudit(prep, kept)));
     return;
   }
   if (fmt === 'csv') {
-    const refs = new Set<string>();
-    const inputs = new Set<string>(parsed.columns);
-    for (const r of parsed.rows) {
-      if (r.galaxy?.imfRef) refs.add(r.galaxy.imfRef);
-      for (const k of Object.keys(r.raw)) inputs.add(k);
-    }
-    const layout = csvLayoutOf(prep.choices.imfs, refs, inputs);
+    const layout = csvLayoutOf(prep.choices.imfs, parsed.summary.imfRefs, [...parsed.columns, ...parsed.summary.inputColumns]);
     out(auditCsvHeader(layout));
     for (const l of auditCsvFileRows(layout, parsed.fileErrors, parsed.fileWarnings)) out(l);
     for await (const g of rows) {
       out(auditCsvRow(g, layout));
-      kept.push(slim(g));
       await backpressure();
     }
-    finishAudit(prep, kept);
     return;
   }
+  const tally = newTally(prep);
   out('{\n  "galaxies": [');
   // Each galaxy on its own line; a line is written when the next one arrives (it then needs its comma).
   let pending: string | undefined;
+  let n = 0;
   for await (const g of rows) {
-    assertFinite(g, `$.galaxies[${kept.length}]`);
+    assertFinite(g, `$.galaxies[${n++}]`);
     if (pending !== undefined) out(pending + ',');
     pending = `    ${JSON.stringify(g)}`;
-    kept.push(slim(g));
+    tallyRow(prep, tally, g);
     await backpressure();
   }
   if (pending !== undefined) out(pending);
-  const res = finishAudit(prep, kept);
-  assertFinite(res.sample, '$.sample');
-  out(`  ],\n  "sample": ${indent(JSON.stringify(res.sample, null, 2), '  ')},\n  "caution": ${JSON.stringify(res.caution)},\n  "record": ${indent(JSON.stringify(res.record, null, 2), '  ')}\n}`);
+  const sample = sampleLevel(prep, tally);
+  assertFinite(sample, '$.sample');
+  out(`  ],\n  "sample": ${indent(JSON.stringify(sample, null, 2), '  ')},\n  "caution": ${JSON.stringify(AUDIT_CAUTION)},\n`);
+  await writeRecord(auditRecord(prep), out);
 }

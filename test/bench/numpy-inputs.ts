@@ -31,7 +31,7 @@ export function writeNumpyInputs(rows: number, draws: number, file: string): voi
     }
   }
   const sigmas = new Map<number, number[]>();
-  const galaxies = prep.parsed.rows.filter((r) => r.status === 'ok').map((r) => {
+  const galaxies = Array.from({ length: prep.parsed.rowCount }, (_, i) => prep.parsed.rowAt(i)).filter((r) => r.status === 'ok').map((r) => {
     const g = r.galaxy!;
     const sigmaDm = ctx.sigmaDmFor(undefined, g.z);
     if (!sigmas.has(sigmaDm)) sigmas.set(sigmaDm, nodeZ.map((z) => ceil.log10HaloMassAtQuantileCv(z, sigmaDm)));

@@ -1,6 +1,6 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { decodeText, editDistance, parseSample, type ParsedSample } from '../../src/core/audit/index.js';
+import { decodeText, editDistance, indexSample, parseSample, type ParsedSample } from '../../src/core/audit/index.js';
 
 const known = (n: string): boolean => ['salpeter', 'chabrier', 'kroupa', 'top-heavy-flat', 'top-heavy-cmb'].includes(n);
 
@@ -98,5 +98,42 @@ describe('nothing silently dropped or merged', () => {
     expect(() => decodeText(le.subarray(2), 'sample')).toThrow(/sample looks like UTF-16 without a byte-order mark/);
     expect(() => decodeText(Uint8Array.from([0x69, 0x64, 0x0a, 0x41, 0xe9, 0x0a]), 'sample')).toThrow(/not valid UTF-8 \(byte 0xe9 at offset 4, line 2\).*Latin-1/);
     expect(decodeText(Uint8Array.from([0xef, 0xbb, 0xbf, 0x69, 0x64])).text).toBe('id');
+  });
+
+  it('a row read again alone from the index is the row read with the whole file (any dialect, quotes, line ends)', () => {
+    // The audit keeps only where each record lies and reads it again when it is audited (flat memory);
+    // that reading must not depend on the rest of the file.
+    const cell = fc.oneof(fc.constantFrom('', 'A', 'A', '9.1', '-20', ' 7 ', '"q, x"', '"q; x"', '"multi\nline"', '"cr\r\nline"', '"a ""b"""', '"open', '\t', '=1+1'), fc.stringMatching(/^[a-z0-9.]{0,5}$/));
+    fc.assert(
+      fc.property(
+        fc.constantFrom(',', ';', '\t'),
+        fc.array(fc.array(cell, { minLength: 1, maxLength: 5 }), { maxLength: 10 }),
+        fc.array(fc.constantFrom('\n', '\r\n', '\r'), { minLength: 11, maxLength: 11 }),
+        fc.boolean(),
+        (sep, lines, ends, bom) => {
+          const head = ['id', 'z', 'muv', 'notes'].join(sep);
+          let t = (bom ? '\uFEFF' : '') + head;
+          lines.forEach((l, i) => (t += ends[i] + l.join(sep)));
+          const whole = parseSample(t, known);
+          const idx = indexSample(t, known);
+          expect(idx.rowCount).toBe(whole.rows.length);
+          for (let i = 0; i < idx.rowCount; i++) expect(idx.rowAt(i)).toEqual(whole.rows[i]);
+          const { rows: _rows, ...fileFacts } = whole;
+          const { rowCount: _n, rowAt: _at, ...indexFacts } = idx;
+          expect(indexFacts).toEqual(fileFacts);
+        },
+      ),
+      { numRuns: 400 },
+    );
+  });
+
+  it('the index sums up the accepted rows (z range and reach, imf_ref values, every column), as the rows say', () => {
+    const p = indexSample('id,z,z_lo,z_hi,z_alt,p_alt,log_mstar,imf_ref\nA,9,8.5,9.2,,,10,kroupa\nB,12,11,12.1,2,0.1,10,salpeter\nC,40,,,,,10,kroupa\nD,8,,,,,10,chabrier,extra\n', known);
+    expect(p.summary.accepted).toBe(2); // C has z > 30; D has a cell beyond the header
+    expect(p.summary.zLowest).toBe(9);
+    expect(p.summary.zHighest).toBe(12);
+    expect(p.summary.zReach).toBeCloseTo(Math.max(9 + 5 * 0.5, 12 + 5 * 1), 12); // z + 5 × the larger half-interval
+    expect(p.summary.imfRefs).toEqual(['kroupa', 'salpeter']);
+    expect(p.summary.inputColumns).toEqual(['id', 'z', 'z_lo', 'z_hi', 'z_alt', 'p_alt', 'log_mstar', 'imf_ref', '(column 9)']);
   });
 });

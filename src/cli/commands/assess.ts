@@ -25,6 +25,7 @@ import { HALO_HELP, HALO_OPTIONS, haloChoices } from '../halo-options.js';
 import { defaultJobs, maxJobs } from '../parallel-audit.js';
 import { INPUT_OPTIONS, inputLimitBytes, readInput } from '../read-input.js';
 import { streamAudit } from '../stream-audit.js';
+import type { LineOut } from '../main.js';
 import { imfList, sfhFrom, STAR_HELP, STAR_OPTIONS } from '../star-options.js';
 
 export const ASSESS_HELP = `Usage: assess SAMPLE.csv --area-arcmin2 40 --z-range 7:11 [--imf ...] [--eps-ref 0.3] [--quantile 0.997]
@@ -65,9 +66,11 @@ ${COSMOLOGY_HELP}`;
  */
 function mapOf(csv: string, choices: AuditChoices, id: string, fmt: 'json' | 'csv' | 'md'): string {
   const prep = prepareAudit(csv, choices);
-  const index = prep.parsed.rows.findIndex((r) => (r.raw.id ?? '').trim() === id);
+  let index = -1;
+  for (let i = 0; i < prep.parsed.rowCount && index < 0; i++) if ((prep.parsed.rowAt(i).raw.id ?? '').trim() === id) index = i;
   if (index < 0) throw new CliError(`--map: no row has the id "${id}"`);
-  if (prep.parsed.rows[index].status !== 'ok') throw new CliError(`--map: row ${prep.parsed.rows[index].row} ("${id}") is rejected: ${prep.parsed.rows[index].errors.map((e) => `${e.column}: ${e.reason}`).join('; ')}`);
+  const r = prep.parsed.rowAt(index);
+  if (r.status !== 'ok') throw new CliError(`--map: row ${r.row} ("${id}") is rejected: ${r.errors.map((e) => `${e.column}: ${e.reason}`).join('; ')}`);
   let m;
   try {
     m = disputedMap(prep, index);
@@ -96,7 +99,7 @@ function range(flag: string, raw: string, lo: ChoiceSpec, hi: ChoiceSpec): [numb
 /** Flags that only make sense for a new audit; beside --record they are refused, not ignored. */
 const RECORD_ALLOWS = new Set(['record', 'format', 'jobs', 'help', 'max-input-mb']);
 
-export async function runAssess(argv: string[], out: (s: string) => void = () => undefined, err: (s: string) => void = () => undefined): Promise<string | undefined> {
+export async function runAssess(argv: string[], out: LineOut = () => undefined, err: (s: string) => void = () => undefined): Promise<string | undefined> {
   const { values, positionals } = parse(
     argv,
     {
@@ -156,7 +159,11 @@ export async function runAssess(argv: string[], out: (s: string) => void = () =>
     let surveys: Survey[] = [];
     if (typeof values.surveys === 'string') {
       const parsed = parseSurveys(readInput(values.surveys, '--surveys', limit));
-      if (parsed.errors.length) throw new CliError(`--surveys ${values.surveys}: ${parsed.errors[0]}`);
+      if (parsed.errors.length) {
+        const shown = parsed.errors.slice(0, 10).join('; ');
+        throw new CliError(`--surveys ${values.surveys}: ${parsed.errors.length} ${parsed.errors.length === 1 ? 'problem' : 'problems'}: ${shown}${parsed.errors.length > 10 ? `; and ${parsed.errors.length - 10} more` : ''}`);
+      }
+      for (const w of parsed.warnings) err(`note: --surveys ${values.surveys}: ${w}`);
       surveys = parsed.surveys;
     }
     const halo = haloChoices(values);

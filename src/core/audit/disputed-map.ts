@@ -64,7 +64,7 @@ export function contourSegments(xs: readonly number[], ys: readonly number[], f:
 
 /** The map for row `index` of a prepared audit (nz redshifts; the slope grid every 0.05 in α). */
 export function disputedMap(prep: PreparedAudit, index: number, nz = 24, draws = 1000): DisputedMap {
-  const r = prep.parsed.rows[index];
+  const r = index >= 0 && index < prep.parsed.rowCount ? prep.parsed.rowAt(index) : undefined;
   if (!r || r.status !== 'ok') throw new RangeError(`row ${r?.row ?? index + 1}: not an audited galaxy`);
   const g = r.galaxy!;
   const { ctx, choices } = prep;

@@ -1,5 +1,5 @@
-export { runAudit, prepareAudit, auditRow, finishAudit, firstNonFinite, AUDIT_CAUTION } from './run-audit.js';
-export type { AuditResult, GalaxyRow, PreparedAudit } from './run-audit.js';
+export { runAudit, prepareAudit, auditRow, finishAudit, firstNonFinite, AUDIT_CAUTION, newTally, tallyRow, sampleLevel, auditRecord } from './run-audit.js';
+export type { AuditResult, GalaxyRow, PreparedAudit, SampleTally } from './run-audit.js';
 export { validateRecord, recordIn, TOOL_NAME, TOOL_VERSION, RECORD_FORMAT, READABLE_VERSIONS } from './record.js';
 export type { AuditRecord } from './record.js';
 export type { AuditChoices } from './choices.js';
@@ -9,8 +9,8 @@ export type { ChoiceSpec, NumericChoiceKey, SurveyNumberKey } from './choice-spe
 export { checkChoices, checkSurvey, problemText, SCHEMA_LIMITS } from './choice-schema.js';
 export type { ChoiceProblem } from './choice-schema.js';
 export { imfProblem, isKnownImf } from './imf-check.js';
-export { parseSample, parseNumberCell, editDistance, KNOWN_COLUMNS, GALAXY_Z, Z_ALT_MIN } from './sample.js';
-export type { GalaxyInput, LineEnd, ParsedSample, RowProblem, SampleRow } from './sample.js';
+export { indexSample, parseSample, parseNumberCell, editDistance, KNOWN_COLUMNS, GALAXY_Z, Z_ALT_MIN } from './sample.js';
+export type { GalaxyInput, LineEnd, ParsedSample, RowProblem, SampleFile, SampleIndex, SampleRow, SampleSummary } from './sample.js';
 export { parseSurveys, validateSurvey } from './survey.js';
 export type { Survey } from './survey.js';
 export { makeCeilingTable } from './ceiling.js';

@@ -7,7 +7,7 @@ import { makeCeilingUncertainty, type CeilingUncertainty } from './ceiling-uncer
 import { normalizeChoices, validateChoices, type AuditChoices } from './choices.js';
 import { boxSigmaDm } from './cosmic-variance.js';
 import { auditGalaxy, type AuditContext, type GalaxyAudit } from './galaxy-audit.js';
-import { parseSample, type LineEnd, type ParsedSample, type RowProblem } from './sample.js';
+import { indexSample, type LineEnd, type RowProblem, type SampleFile, type SampleIndex, type SampleRow } from './sample.js';
 import { binBudget, type BinBudget, type BudgetMember } from './sample-budget.js';
 import type { Survey } from './survey.js';
 import type { Verdict } from './verdict.js';
@@ -34,18 +34,19 @@ export interface GalaxyRow extends Partial<GalaxyAudit> {
 
 export interface AuditResult {
   readonly galaxies: GalaxyRow[];
-  readonly sample: { readonly bins: BinBudget[]; readonly accepted: number; readonly rejected: number; readonly extra_columns: readonly string[]; readonly file_errors: readonly string[]; readonly file_warnings: readonly string[]; readonly lines: ParsedSample['lines'] };
+  readonly sample: { readonly bins: BinBudget[]; readonly accepted: number; readonly rejected: number; readonly extra_columns: readonly string[]; readonly file_errors: readonly string[]; readonly file_warnings: readonly string[]; readonly lines: SampleFile['lines'] };
   readonly caution: string;
   readonly record: AuditRecord;
 }
 
 const knownImf = isKnownImf;
 
-/** Parsed sample plus the shared machinery (halo model, population tables, ceilings) of one audit. */
+/** The indexed sample plus the shared machinery (halo model, population tables, ceilings) of one audit. */
 export interface PreparedAudit {
   readonly sampleCsv: string;
   readonly choices: AuditChoices;
-  readonly parsed: ParsedSample;
+  /** The sample's file-level facts and an index of its rows (each read again when it is audited). */
+  readonly parsed: SampleIndex;
   readonly ctx: AuditContext;
 }
 
@@ -82,22 +83,13 @@ export function prepareAudit(sampleCsv: string, given: AuditChoices): PreparedAu
   if (problems.length) throw new RangeError(problems.join('; '));
   const choices = normalizeChoices(given);
   const sfh = parseSfh(choices.sfh);
-  const parsed = parseSample(sampleCsv, knownImf);
+  const parsed = indexSample(sampleCsv, knownImf);
   const env = envFor(choices);
   const { halo, cache } = env;
   const surveys = new Map<string, Survey>(choices.surveys.map((s) => [s.name, s]));
-  let zTop = 1;
-  let zLowest = Infinity;
-  let zHighest = -Infinity;
-  for (const r of parsed.rows) {
-    if (r.status !== 'ok') continue;
-    const g = r.galaxy!;
-    zLowest = Math.min(zLowest, g.z);
-    zHighest = Math.max(zHighest, g.z);
-    const spread = Math.max(g.zHi !== undefined ? g.zHi - g.z : 0, g.z - (g.zLo ?? g.z));
-    zTop = Math.max(zTop, g.z + 5 * spread, (g.zAlt ?? 0) * 1.3, choices.survey.zMax + 1);
-  }
-  zTop = Math.min(Math.ceil(zTop + choices.sliceDz), 30.5);
+  const { accepted, zLowest, zHighest, zReach } = parsed.summary;
+  // The ceiling tables reach past every accepted row's redshift draws and the survey (1 with no accepted row).
+  const zTop = Math.min(Math.ceil((accepted > 0 ? Math.max(1, zReach, choices.survey.zMax + 1) : 1) + choices.sliceDz), 30.5);
   const surveyOf = (name: string | undefined): Survey => (name ? surveys.get(name)! : choices.survey);
   const ctx: AuditContext = {
     halo,
@@ -166,9 +158,8 @@ export function firstNonFinite(v: unknown, path: string): string | undefined {
   return undefined;
 }
 
-/** Audits one parsed row (by its position in parsed.rows). */
-export function auditRow(prep: PreparedAudit, index: number): GalaxyRow {
-  const r = prep.parsed.rows[index];
+/** Audits one row of the sample (by its position, 0 for the first data row; `r` if already read). */
+export function auditRow(prep: PreparedAudit, index: number, r: SampleRow = prep.parsed.rowAt(index)): GalaxyRow {
   const choices = prep.choices;
   const named = new Set(choices.surveys.map((s) => s.name));
   const base = { row: r.row, lines: r.lines, line_end: r.lineEnd, id: (r.raw.id ?? '').trim(), input: r.raw, survey: r.galaxy?.survey ?? choices.survey.name };
@@ -191,40 +182,70 @@ export function auditRow(prep: PreparedAudit, index: number): GalaxyRow {
   return { ...base, status: 'ok', errors: [], ...audit };
 }
 
+/**
+ * What the sample level keeps of the rows as they are audited: the counts, and per redshift bin the
+ * members of the cumulative densities (a few numbers a galaxy), so a streamed audit keeps no rows.
+ */
+export interface SampleTally {
+  accepted: number;
+  rejected: number;
+  readonly bins: readonly (readonly [number, number])[];
+  readonly members: BudgetMember[][];
+}
+
+export function newTally(prep: PreparedAudit): SampleTally {
+  const { choices } = prep;
+  const bins = choices.zBins.length ? choices.zBins : [[choices.survey.zMin, choices.survey.zMax] as const];
+  return { accepted: 0, rejected: 0, bins, members: bins.map(() => []) };
+}
+
+/** Adds one audited row: counted, and a member of every bin of the default survey its z lies in. */
+export function tallyRow(prep: PreparedAudit, tally: SampleTally, g: GalaxyRow): void {
+  if (g.status !== 'ok') {
+    tally.rejected++;
+    return;
+  }
+  tally.accepted++;
+  if (g.survey !== prep.choices.survey.name) return;
+  const z = Number(g.input.z);
+  let member: BudgetMember | undefined;
+  tally.bins.forEach(([z0, z1], b) => {
+    if (!(z >= z0 && z < z1)) return;
+    const h = g.imf![g.headline_imf!];
+    member ??= { id: g.id, log10M: h.log_mstar_median, log10MLo: h.log_mstar_p16, log10MHi: h.log_mstar_p84 };
+    tally.members[b].push(member);
+  });
+}
+
+/** The sample level (budgets per bin, counts, the file's facts) from the tally of every row. */
+export function sampleLevel(prep: PreparedAudit, tally: SampleTally): AuditResult['sample'] {
+  const { choices, parsed } = prep;
+  const bins = tally.bins.map(([z0, z1], b) => binBudget(prep.ctx.halo, choices.survey.areaArcmin2, z0, z1, choices.epsRef, tally.members[b], choices.quantile));
+  return {
+    bins,
+    accepted: tally.accepted,
+    rejected: tally.rejected,
+    extra_columns: parsed.extraColumns,
+    file_errors: parsed.fileErrors,
+    file_warnings: parsed.fileWarnings,
+    lines: parsed.lines,
+  };
+}
+
+/** The record that reproduces this audit: the sample as given and the choices. */
+export function auditRecord(prep: PreparedAudit): AuditRecord {
+  return { tool: TOOL_NAME, version: TOOL_VERSION, format: RECORD_FORMAT, sample_csv: prep.sampleCsv, choices: prep.choices };
+}
+
 /** Sample-level budgets and the record, from every row's result. */
 export function finishAudit(prep: PreparedAudit, galaxies: GalaxyRow[]): AuditResult {
-  const { choices, parsed } = prep;
-  const binsSpec = choices.zBins.length ? choices.zBins : [[choices.survey.zMin, choices.survey.zMax] as const];
-  const bins = binsSpec.map(([z0, z1]) => {
-    const members: BudgetMember[] = [];
-    for (const g of galaxies) {
-      if (g.status !== 'ok' || g.survey !== choices.survey.name) continue;
-      const z = Number(g.input.z);
-      if (!(z >= z0 && z < z1)) continue;
-      const h = g.imf![g.headline_imf!];
-      members.push({ id: g.id, log10M: h.log_mstar_median, log10MLo: h.log_mstar_p16, log10MHi: h.log_mstar_p84 });
-    }
-    return binBudget(prep.ctx.halo, choices.survey.areaArcmin2, z0, z1, choices.epsRef, members, choices.quantile);
-  });
-  return {
-    galaxies,
-    sample: {
-      bins,
-      accepted: galaxies.filter((g) => g.status === 'ok').length,
-      rejected: galaxies.filter((g) => g.status === 'rejected').length,
-      extra_columns: parsed.extraColumns,
-      file_errors: parsed.fileErrors,
-      file_warnings: parsed.fileWarnings,
-      lines: parsed.lines,
-    },
-    caution: AUDIT_CAUTION,
-    record: { tool: TOOL_NAME, version: TOOL_VERSION, format: RECORD_FORMAT, sample_csv: prep.sampleCsv, choices },
-  };
+  const tally = newTally(prep);
+  for (const g of galaxies) tallyRow(prep, tally, g);
+  return { galaxies, sample: sampleLevel(prep, tally), caution: AUDIT_CAUTION, record: auditRecord(prep) };
 }
 
 /** The whole audit in one call (the CLI; the worker runs the same three steps with progress). */
 export function runAudit(sampleCsv: string, choices: AuditChoices): AuditResult {
   const prep = prepareAudit(sampleCsv, choices);
-  return finishAudit(prep, prep.parsed.rows.map((_, i) => auditRow(prep, i)));
+  return finishAudit(prep, Array.from({ length: prep.parsed.rowCount }, (_, i) => auditRow(prep, i)));
 }
-

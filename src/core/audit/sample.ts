@@ -1,4 +1,4 @@
-import Papa from 'papaparse';
+import { lineRange, listLines, newlineOf, walkRecords, type Dialect, type LineEnd, type RawRecord } from './csv-records.js';
 import { isStrictNumber } from '../numeric/strict-number.js';
 
 /**
@@ -56,8 +56,7 @@ export interface GalaxyInput {
   readonly notes?: string;
 }
 
-/** How a physical line of the file ended. */
-export type LineEnd = 'LF' | 'CRLF' | 'CR' | 'none';
+export type { LineEnd } from './csv-records.js';
 
 export interface SampleRow {
   readonly row: number;
@@ -73,20 +72,6 @@ export interface SampleRow {
   readonly status: 'ok' | 'rejected';
   readonly galaxy?: GalaxyInput;
   readonly errors: readonly RowProblem[];
-}
-
-export interface ParsedSample {
-  readonly columns: readonly string[];
-  readonly extraColumns: readonly string[];
-  readonly rows: readonly SampleRow[];
-  /** Problems with the file as a whole (no header, no id/z column, a repeated column, an unclosed quote, …). */
-  readonly fileErrors: readonly string[];
-  /** Things worth knowing that cost no data (a column name close to one of ours, mixed line ends). */
-  readonly fileWarnings: readonly string[];
-  /** Physical lines: how many, and which were empty (skipped). Header + rows' lines + empty = total. */
-  readonly lines: { readonly total: number; readonly header: readonly [number, number]; readonly empty: readonly number[] };
-  /** Set when the file cannot be audited at all (no header with id and z): one line saying why. */
-  readonly fatal?: string;
 }
 
 /** Strict number: plain decimal or exponent notation; no thousands separators, no comma decimals. */
@@ -138,64 +123,20 @@ function suggestColumn(name: string): string | undefined {
   return best;
 }
 
-const lineRange = (a: number, b: number): string => (a === b ? `line ${a}` : `lines ${a}–${b}`);
-const listLines = (xs: readonly number[]): string => (xs.length > 8 ? `${xs.slice(0, 8).join(', ')} and ${xs.length - 8} more` : xs.join(', '));
-
-interface RawRecord {
-  cells: string[];
-  lines: [number, number];
-  lineEnd: LineEnd;
-  errors: string[];
+/** The header's reading: column names, and the file-level problems it alone decides. */
+interface HeaderFacts {
+  readonly header: string[];
+  readonly dupProblems: string[];
+  readonly missing: string[];
+  readonly extra: string[];
+  readonly fatal?: string;
+  readonly fileErrors: string[];
+  readonly fileWarnings: string[];
 }
 
-/**
- * Splits the text into records with papaparse, keeping for each its physical lines, how it ended and
- * the parser's own errors. Line breaks are LF or CRLF (a file with CR alone is read with CR); a CR
- * before LF is not part of the last cell. Quoted cells keep their line breaks exactly.
- */
-function splitRecords(text: string): { records: RawRecord[]; empty: number[]; total: number } {
-  const newline = text.includes('\n') ? '\n' : text.includes('\r') ? '\r' : '\n';
-  const records: RawRecord[] = [];
-  const empty: number[] = [];
-  let start = 0;
-  let line = 1;
-  Papa.parse<string[]>(text, {
-    newline,
-    step: (r) => {
-      const end = r.meta.cursor;
-      if (end <= start && start >= text.length) return;
-      const chunk = text.slice(start, end);
-      let breaks = 0;
-      for (let i = chunk.indexOf(newline); i >= 0; i = chunk.indexOf(newline, i + 1)) breaks++;
-      const ended = chunk.endsWith(newline);
-      const lineEnd: LineEnd = !ended ? 'none' : newline === '\r' ? 'CR' : chunk.endsWith('\r\n') ? 'CRLF' : 'LF';
-      const last = line + breaks - (ended ? 1 : 0);
-      const cells = r.data;
-      if (lineEnd === 'CRLF' && cells.length && cells[cells.length - 1].endsWith('\r')) cells[cells.length - 1] = cells[cells.length - 1].slice(0, -1);
-      if (cells.every((c) => c.trim() === '') && breaks <= 1) empty.push(line);
-      else {
-        const errors = r.errors
-          .filter((e) => e.code !== 'UndetectableDelimiter')
-          .map((e) => (e.code === 'MissingQuotes' ? `a quoted cell opened here is never closed, so ${lineRange(line, last)} were read as one row` : `CSV: ${e.message}`));
-        records.push({ cells, lines: [line, last], lineEnd, errors });
-      }
-      line = last + 1;
-      start = end;
-    },
-  });
-  return { records, empty, total: line - 1 };
-}
-
-export function parseSample(text: string, knownImfs: (name: string) => boolean): ParsedSample {
-  const clean = text.replace(/^\uFEFF/, '');
-  const { records, empty, total } = splitRecords(clean);
+function readHeader(head: RawRecord): HeaderFacts {
   const fileErrors: string[] = [];
   const fileWarnings: string[] = [];
-  if (!records.length) {
-    const fatal = 'the sample is empty (no header row)';
-    return { columns: [], extraColumns: [], rows: [], fileErrors: [fatal], fileWarnings, lines: { total, header: [0, 0], empty }, fatal };
-  }
-  const head = records[0];
   const known = KNOWN_COLUMNS as readonly string[];
   const header = head.cells.map((h, i) => {
     const t = h.trim();
@@ -222,89 +163,240 @@ export function parseSample(text: string, knownImfs: (name: string) => boolean):
     const s = suggestColumn(h);
     if (s && !header.includes(s)) fileWarnings.push(`column "${h}" is not one of ours and is only echoed; did you mean "${s}"?`);
   }
-  const ends = new Map<LineEnd, number[]>();
-  for (const r of records) {
-    if (r.lineEnd === 'none') continue;
-    const l = ends.get(r.lineEnd);
-    if (l) l.push(r.lines[1]);
-    else ends.set(r.lineEnd, [r.lines[1]]);
+  return { header, dupProblems, missing, extra, fatal, fileErrors, fileWarnings };
+}
+
+/** One data record (data row `r`) read and checked; `earlierRow` is the row its id first appeared on, if before it. */
+function readRow(rec: RawRecord, r: number, hf: HeaderFacts, earlierRow: number | undefined, knownImfs: (name: string) => boolean): SampleRow {
+  const { header, dupProblems, missing } = hf;
+  const cells = rec.cells;
+  const raw = Object.create(null) as Record<string, string>;
+  const width = Math.max(cells.length, header.length);
+  for (let i = 0; i < width; i++) raw[i < header.length ? header[i] : `(column ${i + 1})`] = cells[i] ?? '';
+  const errors: RowProblem[] = [];
+  const bad = (column: string, reason: string): void => void errors.push({ row: r, column, reason });
+  for (const e of rec.errors) bad('(row)', `${lineRange(...rec.lines)}: ${e}`);
+  for (const d of dupProblems) bad('(header)', d);
+  for (const m of missing) bad(m, 'the header has no such column (required)');
+  if (cells.length !== header.length) bad('(row)', `${lineRange(...rec.lines)} has ${cells.length} cells but the header has ${header.length}`);
+  const num: Partial<Record<NumericColumn, number>> = {};
+  for (const c of NUMERIC) {
+    if (raw[c] === undefined) continue;
+    const p = parseNumberCell(raw[c]);
+    if (p.reason) bad(c, p.reason);
+    else if (p.value !== undefined) num[c] = p.value;
   }
-  if (ends.size > 1) fileWarnings.push(`line ends are mixed (${[...ends].map(([k, v]) => `${k} on ${v.length === 1 ? 'line' : 'lines'} ${listLines(v)}`).join('; ')}); every line was read`);
-  if (empty.length) fileWarnings.push(`${empty.length === 1 ? 'line' : 'lines'} ${listLines(empty)} ${empty.length === 1 ? 'is' : 'are'} empty and ${empty.length === 1 ? 'was' : 'were'} skipped`);
-  const rows: SampleRow[] = [];
+  const id = (raw.id ?? '').trim();
+  if (!id) bad('id', 'is empty');
+  else if (earlierRow !== undefined) bad('id', `"${id}" repeats row ${earlierRow}`);
+  if (raw.z !== undefined && num.z === undefined && !errors.some((e) => e.column === 'z')) bad('z', 'is empty (required)');
+  if (num.z !== undefined && !(num.z >= GALAXY_Z.min && num.z <= GALAXY_Z.max)) bad('z', `must lie in [${GALAXY_Z.min}, ${GALAXY_Z.max}] (got ${raw.z.trim()}): ${GALAXY_Z.why}`);
+  if (num.z_lo !== undefined && num.z !== undefined && !(num.z_lo <= num.z && num.z_lo >= 0)) bad('z_lo', `must lie in [0, z] (got ${num.z_lo} with z = ${num.z})`);
+  if (num.z_hi !== undefined && num.z !== undefined && !(num.z_hi >= num.z && num.z_hi <= GALAXY_Z.max)) bad('z_hi', `must lie in [z, ${GALAXY_Z.max}] (got ${num.z_hi} with z = ${num.z})`);
+  if (num.z_alt !== undefined && !(num.z_alt >= Z_ALT_MIN && num.z_alt <= GALAXY_Z.max)) bad('z_alt', `must lie in [${Z_ALT_MIN}, ${GALAXY_Z.max}] (got ${num.z_alt}): the redshift draws start at z = ${Z_ALT_MIN}`);
+  if (num.p_alt !== undefined && !(num.p_alt >= 0 && num.p_alt <= 1)) bad('p_alt', `must lie in [0, 1] (got ${raw.p_alt.trim()})`);
+  if (num.p_alt !== undefined && num.p_alt > 0 && num.z_alt === undefined) bad('p_alt', 'is given without z_alt');
+  if (num.z_alt !== undefined && num.p_alt === undefined) bad('z_alt', 'is given without p_alt');
+  for (const c of ['log_mstar_err', 'mag_err', 'beta_err'] as const) if (num[c] !== undefined && !(num[c]! >= 0 && num[c]! <= 5)) bad(c, `must lie in [0, 5] (got ${num[c]})`);
+  if (num.lambda_obs_um !== undefined && !(num.lambda_obs_um > 0 && num.lambda_obs_um <= 30)) bad('lambda_obs_um', `must lie in (0, 30] μm (got ${num.lambda_obs_um})`);
+  if (num.log_mstar !== undefined && !(num.log_mstar > 3 && num.log_mstar < 14)) bad('log_mstar', `must lie in (3, 14) log10 Msun (got ${num.log_mstar})`);
+  if (num.muv !== undefined && !(num.muv > -30 && num.muv < -5)) bad('muv', `must lie in (−30, −5) AB mag (got ${num.muv})`);
+  if (num.m_ab !== undefined && !(num.m_ab > 10 && num.m_ab < 40)) bad('m_ab', `must lie in (10, 40) AB mag (got ${num.m_ab})`);
+  if (num.beta !== undefined && !(num.beta > -4 && num.beta < 4)) bad('beta', `must lie in (−4, 4) (got ${num.beta})`);
+  const kinds = [num.muv !== undefined, num.m_ab !== undefined, num.log_mstar !== undefined].filter(Boolean).length;
+  if (kinds === 0 && !errors.some((e) => ['muv', 'm_ab', 'log_mstar'].includes(e.column))) bad('muv/m_ab/log_mstar', 'no brightness: give muv, or m_ab with lambda_obs_um, or log_mstar with imf_ref');
+  if (kinds > 1) bad('muv/m_ab/log_mstar', 'give only one of muv, m_ab, log_mstar');
+  if (num.m_ab !== undefined && num.lambda_obs_um === undefined && !errors.some((e) => e.column === 'lambda_obs_um')) bad('lambda_obs_um', 'is needed with m_ab');
+  const imfRef = (raw.imf_ref ?? '').trim() || undefined;
+  if (num.log_mstar !== undefined && !imfRef) bad('imf_ref', 'is needed with log_mstar (the IMF the reported mass assumed)');
+  if (imfRef && !knownImfs(imfRef)) bad('imf_ref', `"${imfRef}" is not a known IMF`);
+  if (num.log_mstar_alt !== undefined && num.z_alt === undefined) bad('log_mstar_alt', 'is given without z_alt');
+  if (num.log_mstar_alt !== undefined && num.log_mstar === undefined) bad('log_mstar_alt', 'needs log_mstar');
+  if (errors.length) return { row: r, lines: rec.lines, lineEnd: rec.lineEnd, raw, status: 'rejected', errors };
+  const galaxy: GalaxyInput = {
+    row: r,
+    id,
+    z: num.z!,
+    zLo: num.z_lo,
+    zHi: num.z_hi,
+    zAlt: num.z_alt,
+    pAlt: num.p_alt ?? 0,
+    muv: num.muv,
+    mAB: num.m_ab,
+    lambdaObsUm: num.lambda_obs_um,
+    log10Mstar: num.log_mstar,
+    imfRef,
+    log10MstarErr: num.log_mstar_err ?? 0,
+    log10MstarAlt: num.log_mstar_alt,
+    magErr: num.mag_err ?? 0,
+    beta: num.beta,
+    betaErr: num.beta_err ?? 0,
+    survey: (raw.survey ?? '').trim() || undefined,
+    notes: raw.notes,
+  };
+  return { row: r, lines: rec.lines, lineEnd: rec.lineEnd, raw, status: 'ok', galaxy, errors: [] };
+}
+
+/** Warnings about the file's line ends (mixed) and empty lines, from every record's line end. */
+function lineWarnings(ends: Map<LineEnd, number[]>, empty: readonly number[]): string[] {
+  const out: string[] = [];
+  if (ends.size > 1) out.push(`line ends are mixed (${[...ends].map(([k, v]) => `${k} on ${v.length === 1 ? 'line' : 'lines'} ${listLines(v)}`).join('; ')}); every line was read`);
+  if (empty.length) out.push(`${empty.length === 1 ? 'line' : 'lines'} ${listLines(empty)} ${empty.length === 1 ? 'is' : 'are'} empty and ${empty.length === 1 ? 'was' : 'were'} skipped`);
+  return out;
+}
+
+/** What the audit needs to know of the sample's accepted rows before auditing any (the ceiling tables' reach, the CSV layout). */
+export interface SampleSummary {
+  readonly accepted: number;
+  /** Lowest and highest z of the accepted rows (±Infinity when none). */
+  readonly zLowest: number;
+  readonly zHighest: number;
+  /** The highest redshift the draws of an accepted row may reach: max(z + 5 × the larger half-interval, 1.3 z_alt). */
+  readonly zReach: number;
+  /** The imf_ref values of the accepted rows, in order of first appearance. */
+  readonly imfRefs: readonly string[];
+  /** Every column name any row has (the header's, and "(column N)" for cells beyond it), in order of appearance. */
+  readonly inputColumns: readonly string[];
+}
+
+/** File-level facts of a sample, common to the whole reading and the index. */
+export interface SampleFile {
+  readonly columns: readonly string[];
+  readonly extraColumns: readonly string[];
+  /** Problems with the file as a whole (no header, no id/z column, a repeated column, an unclosed quote, …). */
+  readonly fileErrors: readonly string[];
+  /** Things worth knowing that cost no data (a column name close to one of ours, mixed line ends). */
+  readonly fileWarnings: readonly string[];
+  /** Physical lines: how many, and which were empty (skipped). Header + rows' lines + empty = total. */
+  readonly lines: { readonly total: number; readonly header: readonly [number, number]; readonly empty: readonly number[] };
+  /** Set when the file cannot be audited at all (no header with id and z): one line saying why. */
+  readonly fatal?: string;
+  readonly summary: SampleSummary;
+}
+
+export interface ParsedSample extends SampleFile {
+  readonly rows: readonly SampleRow[];
+}
+
+/**
+ * The sample read once for its file-level facts and summary, holding only where each record lies
+ * (a few numbers a row): `rowAt(i)` reads and checks data row i + 1 again from the text, with the same
+ * result as reading the whole file (the memory of an audit stays flat in the number of rows).
+ */
+export interface SampleIndex extends SampleFile {
+  readonly rowCount: number;
+  rowAt(i: number): SampleRow;
+}
+
+/** Reads the sample for its index; `each` sees every data row as it is read (the whole reading keeps them). */
+function readSample(text: string, knownImfs: (name: string) => boolean, each?: (row: SampleRow) => void): SampleIndex {
+  const clean = text.replace(/^\uFEFF/, '');
+  const dialect: Dialect = { newline: newlineOf(clean) };
+  let hf: HeaderFacts | undefined;
+  let head: RawRecord | undefined;
+  // Per data record: its start and end offsets and its first line (3 numbers, 24 bytes a row).
+  let places = new Float64Array(3 * 1024);
+  let count = 0;
   const seenIds = new Map<string, number>();
-  for (let r = 1; r < records.length; r++) {
-    const rec = records[r];
-    const cells = rec.cells;
-    const raw = Object.create(null) as Record<string, string>;
-    const width = Math.max(cells.length, header.length);
-    for (let i = 0; i < width; i++) raw[i < header.length ? header[i] : `(column ${i + 1})`] = cells[i] ?? '';
-    const errors: RowProblem[] = [];
-    const bad = (column: string, reason: string): void => void errors.push({ row: r, column, reason });
-    for (const e of rec.errors) bad('(row)', `${lineRange(...rec.lines)}: ${e}`);
-    for (const d of dupProblems) bad('(header)', d);
-    for (const m of missing) bad(m, 'the header has no such column (required)');
-    if (cells.length !== header.length) bad('(row)', `${lineRange(...rec.lines)} has ${cells.length} cells but the header has ${header.length}`);
-    const num: Partial<Record<NumericColumn, number>> = {};
-    for (const c of NUMERIC) {
-      if (raw[c] === undefined) continue;
-      const p = parseNumberCell(raw[c]);
-      if (p.reason) bad(c, p.reason);
-      else if (p.value !== undefined) num[c] = p.value;
+  const repeats = new Map<number, number>();
+  const ends = new Map<LineEnd, number[]>();
+  let accepted = 0;
+  let zLowest = Infinity;
+  let zHighest = -Infinity;
+  let zReach = -Infinity;
+  const imfRefs = new Set<string>();
+  const inputColumns = new Set<string>();
+  const walked = walkRecords(clean, dialect, (rec, place) => {
+    if (rec.lineEnd !== 'none') {
+      const l = ends.get(rec.lineEnd);
+      if (l) l.push(rec.lines[1]);
+      else ends.set(rec.lineEnd, [rec.lines[1]]);
     }
-    const id = (raw.id ?? '').trim();
-    if (!id) bad('id', 'is empty');
-    else if (seenIds.has(id)) bad('id', `"${id}" repeats row ${seenIds.get(id)}`);
-    else seenIds.set(id, r);
-    if (raw.z !== undefined && num.z === undefined && !errors.some((e) => e.column === 'z')) bad('z', 'is empty (required)');
-    if (num.z !== undefined && !(num.z >= GALAXY_Z.min && num.z <= GALAXY_Z.max)) bad('z', `must lie in [${GALAXY_Z.min}, ${GALAXY_Z.max}] (got ${raw.z.trim()}): ${GALAXY_Z.why}`);
-    if (num.z_lo !== undefined && num.z !== undefined && !(num.z_lo <= num.z && num.z_lo >= 0)) bad('z_lo', `must lie in [0, z] (got ${num.z_lo} with z = ${num.z})`);
-    if (num.z_hi !== undefined && num.z !== undefined && !(num.z_hi >= num.z && num.z_hi <= GALAXY_Z.max)) bad('z_hi', `must lie in [z, ${GALAXY_Z.max}] (got ${num.z_hi} with z = ${num.z})`);
-    if (num.z_alt !== undefined && !(num.z_alt >= Z_ALT_MIN && num.z_alt <= GALAXY_Z.max)) bad('z_alt', `must lie in [${Z_ALT_MIN}, ${GALAXY_Z.max}] (got ${num.z_alt}): the redshift draws start at z = ${Z_ALT_MIN}`);
-    if (num.p_alt !== undefined && !(num.p_alt >= 0 && num.p_alt <= 1)) bad('p_alt', `must lie in [0, 1] (got ${raw.p_alt.trim()})`);
-    if (num.p_alt !== undefined && num.p_alt > 0 && num.z_alt === undefined) bad('p_alt', 'is given without z_alt');
-    if (num.z_alt !== undefined && num.p_alt === undefined) bad('z_alt', 'is given without p_alt');
-    for (const c of ['log_mstar_err', 'mag_err', 'beta_err'] as const) if (num[c] !== undefined && !(num[c]! >= 0 && num[c]! <= 5)) bad(c, `must lie in [0, 5] (got ${num[c]})`);
-    if (num.lambda_obs_um !== undefined && !(num.lambda_obs_um > 0 && num.lambda_obs_um <= 30)) bad('lambda_obs_um', `must lie in (0, 30] μm (got ${num.lambda_obs_um})`);
-    if (num.log_mstar !== undefined && !(num.log_mstar > 3 && num.log_mstar < 14)) bad('log_mstar', `must lie in (3, 14) log10 Msun (got ${num.log_mstar})`);
-    if (num.muv !== undefined && !(num.muv > -30 && num.muv < -5)) bad('muv', `must lie in (−30, −5) AB mag (got ${num.muv})`);
-    if (num.m_ab !== undefined && !(num.m_ab > 10 && num.m_ab < 40)) bad('m_ab', `must lie in (10, 40) AB mag (got ${num.m_ab})`);
-    if (num.beta !== undefined && !(num.beta > -4 && num.beta < 4)) bad('beta', `must lie in (−4, 4) (got ${num.beta})`);
-    const kinds = [num.muv !== undefined, num.m_ab !== undefined, num.log_mstar !== undefined].filter(Boolean).length;
-    if (kinds === 0 && !errors.some((e) => ['muv', 'm_ab', 'log_mstar'].includes(e.column))) bad('muv/m_ab/log_mstar', 'no brightness: give muv, or m_ab with lambda_obs_um, or log_mstar with imf_ref');
-    if (kinds > 1) bad('muv/m_ab/log_mstar', 'give only one of muv, m_ab, log_mstar');
-    if (num.m_ab !== undefined && num.lambda_obs_um === undefined && !errors.some((e) => e.column === 'lambda_obs_um')) bad('lambda_obs_um', 'is needed with m_ab');
-    const imfRef = (raw.imf_ref ?? '').trim() || undefined;
-    if (num.log_mstar !== undefined && !imfRef) bad('imf_ref', 'is needed with log_mstar (the IMF the reported mass assumed)');
-    if (imfRef && !knownImfs(imfRef)) bad('imf_ref', `"${imfRef}" is not a known IMF`);
-    if (num.log_mstar_alt !== undefined && num.z_alt === undefined) bad('log_mstar_alt', 'is given without z_alt');
-    if (num.log_mstar_alt !== undefined && num.log_mstar === undefined) bad('log_mstar_alt', 'needs log_mstar');
-    if (errors.length) {
-      rows.push({ row: r, lines: rec.lines, lineEnd: rec.lineEnd, raw, status: 'rejected', errors });
-      continue;
+    if (!hf) {
+      head = rec;
+      hf = readHeader(rec);
+      for (const h of hf.header) inputColumns.add(h);
+      return;
     }
-    const galaxy: GalaxyInput = {
-      row: r,
-      id,
-      z: num.z!,
-      zLo: num.z_lo,
-      zHi: num.z_hi,
-      zAlt: num.z_alt,
-      pAlt: num.p_alt ?? 0,
-      muv: num.muv,
-      mAB: num.m_ab,
-      lambdaObsUm: num.lambda_obs_um,
-      log10Mstar: num.log_mstar,
-      imfRef,
-      log10MstarErr: num.log_mstar_err ?? 0,
-      log10MstarAlt: num.log_mstar_alt,
-      magErr: num.mag_err ?? 0,
-      beta: num.beta,
-      betaErr: num.beta_err ?? 0,
-      survey: (raw.survey ?? '').trim() || undefined,
-      notes: raw.notes,
-    };
-    rows.push({ row: r, lines: rec.lines, lineEnd: rec.lineEnd, raw, status: 'ok', galaxy, errors: [] });
+    const r = count + 1;
+    if (3 * (count + 1) > places.length) {
+      const grown = new Float64Array(places.length * 2);
+      grown.set(places);
+      places = grown;
+    }
+    places[3 * count] = place.start;
+    places[3 * count + 1] = place.end;
+    places[3 * count + 2] = rec.lines[0];
+    count++;
+    // The id as readRow sees it: the cell under the last column named "id".
+    const idCol = hf.header.lastIndexOf('id');
+    const id = idCol >= 0 ? (rec.cells[idCol] ?? '').trim() : '';
+    let earlier: number | undefined;
+    if (id) {
+      earlier = seenIds.get(id);
+      if (earlier === undefined) seenIds.set(id, r);
+      else repeats.set(r, earlier);
+    }
+    const row = readRow(rec, r, hf, earlier, knownImfs);
+    for (let i = hf.header.length; i < rec.cells.length; i++) inputColumns.add(`(column ${i + 1})`);
+    if (row.status === 'ok') {
+      const g = row.galaxy!;
+      accepted++;
+      zLowest = Math.min(zLowest, g.z);
+      zHighest = Math.max(zHighest, g.z);
+      const spread = Math.max(g.zHi !== undefined ? g.zHi - g.z : 0, g.z - (g.zLo ?? g.z));
+      zReach = Math.max(zReach, g.z + 5 * spread, (g.zAlt ?? 0) * 1.3);
+      if (g.imfRef) imfRefs.add(g.imfRef);
+    }
+    each?.(row);
+  });
+  dialect.delimiter = walked.delimiter;
+  const { empty, total } = walked;
+  const summary: SampleSummary = { accepted, zLowest, zHighest, zReach, imfRefs: [...imfRefs], inputColumns: [...inputColumns] };
+  if (!hf || !head) {
+    const fatal = 'the sample is empty (no header row)';
+    return { columns: [], extraColumns: [], fileErrors: [fatal], fileWarnings: [], lines: { total, header: [0, 0], empty }, fatal, summary, rowCount: 0, rowAt: noRow };
   }
-  return { columns: header, extraColumns: extra, rows, fileErrors, fileWarnings, lines: { total, header: head.lines, empty }, ...(fatal ? { fatal } : {}) };
+  const facts = hf;
+  const fileWarnings = [...facts.fileWarnings, ...lineWarnings(ends, empty)];
+  seenIds.clear();
+  const rowAt = (i: number): SampleRow => {
+    if (!(i >= 0 && i < count)) return noRow(i);
+    const start = places[3 * i];
+    const end = places[3 * i + 1];
+    const first = places[3 * i + 2];
+    let row: SampleRow | undefined;
+    walkRecords(clean.slice(start, end), dialect, (rec) => {
+      row = readRow(rec, i + 1, facts, repeats.get(i + 1), knownImfs);
+      return false;
+    }, first);
+    return row!;
+  };
+  return {
+    columns: facts.header,
+    extraColumns: facts.extra,
+    fileErrors: facts.fileErrors,
+    fileWarnings,
+    lines: { total, header: head.lines, empty },
+    ...(facts.fatal ? { fatal: facts.fatal } : {}),
+    summary,
+    rowCount: count,
+    rowAt,
+  };
+}
+
+function noRow(i: number): never {
+  throw new RangeError(`the sample has no data row ${i + 1}`);
+}
+
+/** The sample read for the audit: file-level facts, summary and an index of its rows (see SampleIndex). */
+export function indexSample(text: string, knownImfs: (name: string) => boolean): SampleIndex {
+  return readSample(text, knownImfs);
+}
+
+/** The sample read whole: every row kept (for the page's editor and for tests). */
+export function parseSample(text: string, knownImfs: (name: string) => boolean): ParsedSample {
+  const rows: SampleRow[] = [];
+  const { rowCount: _n, rowAt: _r, ...file } = readSample(text, knownImfs, (row) => rows.push(row));
+  return { ...file, rows };
 }

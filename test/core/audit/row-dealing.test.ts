@@ -39,7 +39,7 @@ describe('row dealing over threads', () => {
     for (let i = 0; i < 26; i++) lines.push(`D-${i},${(7.4 + i * 0.13).toFixed(2)},${(7.2 + i * 0.13).toFixed(2)},${(7.6 + i * 0.13).toFixed(2)},-21.0,0.1`);
     const choices = { ...DEFAULT_CHOICES, draws: 200, imfs: ['salpeter', 'top-heavy-flat'] };
     const prep = prepareAudit(lines.join('\n'), choices);
-    const serial = prep.parsed.rows.map((_, i) => auditRow(prep, i));
+    const serial = Array.from({ length: prep.parsed.rowCount }, (_, i) => auditRow(prep, i));
     const dealt = new Array(serial.length);
     for (const part of dealRows(serial.length, threadsFor(serial.length, 3))) for (const i of part) dealt[i] = auditRow(prepareAudit(lines.join('\n'), choices), i);
     expect(dealt).toEqual(serial);
