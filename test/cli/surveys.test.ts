@@ -2,14 +2,9 @@ import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { main } from '../../src/cli/main.js';
+import { runCli } from './run-cli.js';
 
-async function run(args: string[]): Promise<{ code: number; out: string; err: string }> {
-  let out = '';
-  let err = '';
-  const code = await main(args, (s) => (out += s + '\n'), (s) => (err += s + '\n'));
-  return { code, out, err };
-}
+const run = runCli;
 const tmp = mkdtempSync(join(tmpdir(), 'baryon-surveys-'));
 const sample = join(tmp, 's.csv');
 writeFileSync(sample, 'id,z,muv,survey\nQ-1,9,-21,deep\nQ-2,9,-21,\n');

@@ -3,17 +3,12 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { main } from '../../src/cli/main.js';
+import { runCli } from '../cli/run-cli.js';
 import { validateRecord } from '../../src/core/audit/index.js';
 import { decodeShare, encodeShare, loadSaved, makeRecord, recordFromJson, save, STORAGE_KEY } from '../../src/ui/app-state.js';
 import { DEFAULT_CHOICES } from '../../src/ui/default-choices.js';
 
-async function run(args: string[]): Promise<{ code: number; out: string; err: string }> {
-  let out = '';
-  let err = '';
-  const code = await main(args, (s) => (out += s + '\n'), (s) => (err += s + '\n'));
-  return { code, out, err };
-}
+const run = runCli;
 const tmp = mkdtempSync(join(tmpdir(), 'baryon-record-'));
 const REC = makeRecord('id,z,muv\nA,9,-20\n', { ...DEFAULT_CHOICES, draws: 200, imfs: ['salpeter'] });
 
