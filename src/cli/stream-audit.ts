@@ -19,6 +19,7 @@ import { once } from 'node:events';
 import { CliError } from './cli-error.js';
 import { assertFinite } from './output.js';
 import { auditRowsInOrder } from './parallel-audit.js';
+import { jsonPieces } from './json-pieces.js';
 import type { LineOut } from './main.js';
 
 /**
@@ -30,6 +31,29 @@ async function backpressure(): Promise<void> {
 }
 
 const indent = (json: string, pad: string): string => json.replace(/\n/g, `\n${pad}`);
+
+/**
+ * Writes pieces that together make whole lines (the last piece ends a line): with `out.write` each
+ * as it comes, a few at a time (the sample level has one line per number of each galaxy's point);
+ * otherwise joined into one `out` call.
+ */
+async function writePieces(pieces: Iterable<string>, out: LineOut): Promise<void> {
+  const write = out.write;
+  if (!write) {
+    out([...pieces].join(''));
+    return;
+  }
+  let buf = '';
+  for (const p of pieces) {
+    buf += p;
+    if (buf.length > 1 << 16) {
+      write(buf);
+      buf = '';
+      await backpressure();
+    }
+  }
+  write(buf + '\n');
+}
 
 /** Characters of the sample written per piece of the record's sample_csv. */
 const TEXT_PIECE = 1 << 20;
@@ -102,6 +126,6 @@ export async function streamAudit(csv: string, choices: AuditChoices, jobs: numb
   if (pending !== undefined) out(pending);
   const sample = sampleLevel(prep, tally);
   assertFinite(sample, '$.sample');
-  out(`  ],\n  "sample": ${indent(JSON.stringify(sample, null, 2), '  ')},\n  "caution": ${JSON.stringify(AUDIT_CAUTION)},\n`);
+  await writePieces(['  ],\n  "sample": ', ...jsonPieces(sample, '  '), `,\n  "caution": ${JSON.stringify(AUDIT_CAUTION)},`], out);
   await writeRecord(auditRecord(prep), out);
 }
