@@ -1,12 +1,14 @@
 #!/usr/bin/env node
 // Runs the command-line tool, bundling src/cli/main.ts with esbuild first when any source is newer
-// than the cached bundle (node_modules/.cache/baryon-audit/cli.mjs).
+// than the cached bundle (node_modules/.cache/baryon-audit/<checkout>/cli.mjs).
+import { createHash } from 'node:crypto';
 import { existsSync, readdirSync, statSync } from 'node:fs';
 import { dirname, join, resolve } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 
 const root = resolve(dirname(fileURLToPath(import.meta.url)), '../..');
-const out = join(root, 'node_modules/.cache/baryon-audit/cli.mjs');
+// One bundle per checkout (keyed by its path), so checkouts that share node_modules never run each other's code.
+const out = join(root, 'node_modules/.cache/baryon-audit', createHash('sha256').update(root).digest('hex').slice(0, 16), 'cli.mjs');
 
 function newest(dir) {
   let t = 0;
