@@ -2,26 +2,27 @@ import { imfMass, imfNumber, type Imf } from './imf.js';
 import { mainSequenceLifetimeMyr } from './lifetime.js';
 import { remnantMassMsun } from './remnant.js';
 import { cumulativeYoungerThan, type Sfh } from './sfh.js';
-import { atmosphereAt, stellarLnu, type AtmosphereRatios } from './stellar-atmosphere.js';
-import { effectiveTemperatureK, zamsLuminosityLsun, zamsRadiusRsun } from './zams.js';
+import { photosphereAt, stellarLnu, type Photosphere } from './stellar-atmosphere.js';
+import { effectiveTemperatureK, surfaceLogG, zamsLuminosityLsun, zamsRadiusRsun } from './zams.js';
 
 /**
  * Our compact population synthesis. The IMF is cut into log-spaced mass bins; each bin is one
  * representative star (the bin's mean mass) with
- *  - a main-sequence phase of length t_MS (Hurley, Pols & Tout 2000) at a mid-main-sequence state:
- *    1.3× the ZAMS luminosity and 1.3× the ZAMS radius (Tout et al. 1996). Stars brighten and swell on
- *    the main sequence (roughly doubling L between ZAMS and TAMS); the factors are our approximation,
- *    chosen while comparing the model with the Kennicutt 1998 UV calibration at 1500 Å, so that
- *    comparison constrains them rather than tests them (README, "The population model");
+ *  - a main-sequence phase of length t_MS (Hurley, Pols & Tout 2000) at one mid-main-sequence state:
+ *    1.3× the ZAMS luminosity and 2.0× the ZAMS radius (Tout et al. 1996), so T_eff is 0.76× its ZAMS value.
+ *    Stars brighten and swell on the main sequence (roughly doubling L and tripling R between ZAMS and TAMS
+ *    for massive stars); the two factors are our approximation, chosen on a grid while comparing the model
+ *    with the Kennicutt 1998 UV calibration at 1500 Å, the UV-slope window and the band-to-band mass
+ *    consistency, so those comparisons constrain them rather than test them (README, "The population model");
  *  - a post-main-sequence phase of 0.1 t_MS at twice the ZAMS luminosity, as a red giant or
- *    supergiant (T_eff = 4500 K) below 15 Msun and a blue supergiant (T_eff = 20 000 K) above
- *    (our approximation of core-helium burning; the 20 000 K was set with the UV calibrations in
- *    view, so it is calibrated, not independent of them);
+ *    supergiant (T_eff = 4500 K) below 15 Msun and a blue supergiant (T_eff = 12 000 K) above
+ *    (our approximation of core-helium burning; the 12 000 K was set with the same checks in view, so it is
+ *    calibrated, not independent of them);
  *  - then a remnant (remnant.ts), the rest of its mass returned to the gas.
- * Each star radiates the spectrum of stellar-atmosphere.ts: a photosphere with the hydrogen Lyman and
- * Balmer continua (Eddington grey structure, Eddington–Barbier fluxes, measured Balmer jumps), not a
- * black body. Any SFH enters through C(a), the fraction of mass younger than a, so each bin's
- * contribution is exact for piecewise-constant stellar phases. Everything is per Msun ever formed.
+ * Each star radiates the spectrum of stellar-atmosphere.ts for its T_eff and surface gravity: a photosphere
+ * with the LTE continuous opacity of hydrogen (every bound-free continuum, free-free), H⁻ and electron
+ * scattering, not a black body. Any SFH enters through C(a), the fraction of mass younger than a, so each
+ * bin's contribution is exact for piecewise-constant stellar phases. Everything is per Msun ever formed.
  */
 export interface PopulationOptions {
   /** Metallicity (mass fraction), default 0.02. */
@@ -31,7 +32,7 @@ export interface PopulationOptions {
 }
 
 export const MS_LUMINOSITY_FACTOR = 1.3;
-export const MS_RADIUS_FACTOR = 1.4;
+export const MS_RADIUS_FACTOR = 2.0;
 export const POST_MS_DURATION = 0.1;
 export const POST_MS_LUMINOSITY_FACTOR = 2;
 export const POST_MS_TEFF_K = 4500;
@@ -101,17 +102,16 @@ export function makePopulation(imf: Imf, opts: PopulationOptions = {}): Populati
     tEff[i] = effectiveTemperatureK(lMs[i], rMs[i]);
   }
   // Photospheres and post-main-sequence radii: fixed per bin, reused at every wavelength.
-  const atmPostRed = atmosphereAt(POST_MS_TEFF_K);
-  const atmPostBlue = atmosphereAt(POST_MS_TEFF_MASSIVE_K);
-  const atmMs: AtmosphereRatios[] = [];
-  const atmPost: AtmosphereRatios[] = [];
+  const atmMs: Photosphere[] = [];
+  const atmPost: Photosphere[] = [];
   const rPost = new Float64Array(n);
   for (let i = 0; i < n; i++) {
-    atmMs.push(atmosphereAt(tEff[i]));
+    atmMs.push(photosphereAt(tEff[i], surfaceLogG(mStar[i], rMs[i]), Z));
     const massive = mStar[i] >= POST_MS_MASSIVE_MSUN;
-    atmPost.push(massive ? atmPostBlue : atmPostRed);
+    const tPost = massive ? POST_MS_TEFF_MASSIVE_K : POST_MS_TEFF_K;
     const lPost = (POST_MS_LUMINOSITY_FACTOR / MS_LUMINOSITY_FACTOR) * lMs[i];
-    rPost[i] = Math.sqrt(lPost) * (5772 / (massive ? POST_MS_TEFF_MASSIVE_K : POST_MS_TEFF_K)) ** 2; // Stefan–Boltzmann in solar units
+    rPost[i] = Math.sqrt(lPost) * (5772 / tPost) ** 2; // Stefan–Boltzmann in solar units
+    atmPost.push(photosphereAt(tPost, surfaceLogG(mStar[i], rPost[i]), Z));
   }
   const lnuCache = new Map<number, { ms: Float64Array; post: Float64Array }>();
   const perStarLnu = (lambdaUm: number): { ms: Float64Array; post: Float64Array } => {
