@@ -3,9 +3,9 @@ import { expIntegralE2 } from './exponential-integral.js';
 
 /**
  * Emergent flux of a plane-parallel LTE atmosphere from the formal solution of the transfer equation,
- * F_ν(0) = 2π ∫₀^∞ S_ν(τ_ν) E_2(τ_ν) dτ_ν with S_ν = B_ν (Mihalas 1978, Stellar Atmospheres, eq. 2-62;
- * Gray 2005, eq. 7.?? — equation numbers from memory). The Eddington–Barbier relation F_ν ≈ πS_ν(⅔) is its
- * exact value for a source linear in τ_ν; a source that rises faster than linearly with depth (the Wien side
+ * F_ν(0) = 2π ∫₀^∞ S_ν(τ_ν) E_2(τ_ν) dτ_ν with S_ν = B_ν (Mihalas 1978, Stellar Atmospheres, ch. 2; Gray 2005,
+ * ch. 7; chapters from memory); F_ν/π in the units of S_ν. The Eddington–Barbier relation F_ν ≈ πS_ν(⅔) is
+ * its exact value for a source linear in τ_ν; a source that rises faster than linearly with depth (the Wien side
  * of the Planck function) gives more flux than Eddington–Barbier.
  *
  * Quadrature: ∫₀^∞ f(t) 2E_2(t) dt ≈ Σ_k w_k f(t_k), 5-point Gauss–Legendre on eight panels between 0 and 40
