@@ -2,7 +2,7 @@ import { C_CM_S, CHI_HYDROGEN_EV, EV_ERG, H_PLANCK, K_BOLTZMANN, RYDBERG_H_PER_A
 import { findRoot } from '../numeric/root-find.js';
 import { gasState, type GasState } from './gas-state.js';
 import { hydrogenBoundFreeCrossSection, hydrogenEdgeAngstrom, KRAMERS_FF_CGS, N_LEVELS_MAX } from './hydrogen-opacity.js';
-import { HMINUS_THRESHOLD_ANGSTROM, hMinusBoundFreeCrossSection, hMinusFreeFreeAt, hMinusFreeFreeCoefficients } from './negative-hydrogen-opacity.js';
+import { HMINUS_THRESHOLD_ANGSTROM, hMinusBoundFreeCrossSection, hMinusFreeFreeCoefficients, hMinusFreeFreeLogTheta } from './negative-hydrogen-opacity.js';
 
 /**
  * Continuous opacity of a photospheric layer, cm² g⁻¹ at λ (Å): hydrogen bound-free from levels 1–30 and
@@ -20,6 +20,8 @@ interface Row {
   readonly gffB: number;
   readonly hmBf: number;
   readonly hmFf: readonly [number, number, number];
+  /** Index n − 1 of the lowest level that absorbs at λ (σ_n > 0); the levels below it are skipped. */
+  readonly firstLevel: number;
 }
 
 const rows = new Map<number, Row>();
@@ -27,6 +29,13 @@ const rows = new Map<number, Row>();
 function rowFor(lambdaAngstrom: number): Row {
   const hit = rows.get(lambdaAngstrom);
   if (hit) return hit;
+  const r = makeRow(lambdaAngstrom);
+  if (rows.size > 4096) rows.clear();
+  rows.set(lambdaAngstrom, r);
+  return r;
+}
+
+function makeRow(lambdaAngstrom: number): Row {
   const nu = C_CM_S / (lambdaAngstrom * 1e-8);
   const sigmaN2 = new Float64Array(N_LEVELS_MAX);
   for (let n = 1; n <= N_LEVELS_MAX; n++) sigmaN2[n - 1] = n * n * hydrogenBoundFreeCrossSection(lambdaAngstrom, n);
@@ -39,34 +48,47 @@ function rowFor(lambdaAngstrom: number): Row {
     gffB: (lambdaAngstrom * 1e-8 * K_BOLTZMANN) / (H_PLANCK * C_CM_S),
     hmBf: hMinusBoundFreeCrossSection(lambdaAngstrom),
     hmFf: hMinusFreeFreeCoefficients(lambdaAngstrom),
+    firstLevel: Math.max(sigmaN2.findIndex((v) => v > 0), 0),
   };
-  if (rows.size > 4096) rows.clear();
-  rows.set(lambdaAngstrom, r);
   return r;
 }
 
-/** Per-layer factors: Boltzmann factors of the hydrogen levels. */
-const boltzmannCache = new WeakMap<GasState, Float64Array>();
+/** Per-layer factors: Boltzmann factors of the hydrogen levels, log θ of the H⁻ free-free fit, √T. */
+interface Layer {
+  readonly b: Float64Array;
+  readonly lt: number;
+  readonly sqrtT: number;
+}
 
-function boltzmann(gas: GasState): Float64Array {
-  let b = boltzmannCache.get(gas);
-  if (!b) {
+const layerCache = new WeakMap<GasState, Layer>();
+
+function layerOf(gas: GasState): Layer {
+  let l = layerCache.get(gas);
+  if (!l) {
     const chiKt = (CHI_HYDROGEN_EV * EV_ERG) / (K_BOLTZMANN * gas.tK);
-    b = Float64Array.from({ length: N_LEVELS_MAX }, (_, i) => Math.exp(-chiKt * (1 - 1 / ((i + 1) * (i + 1)))));
-    boltzmannCache.set(gas, b);
+    const b = new Float64Array(N_LEVELS_MAX);
+    for (let i = 0; i < N_LEVELS_MAX; i++) b[i] = Math.exp(-chiKt * (1 - 1 / ((i + 1) * (i + 1))));
+    l = { b, lt: hMinusFreeFreeLogTheta(gas.tK), sqrtT: Math.sqrt(gas.tK) };
+    layerCache.set(gas, l);
   }
-  return b;
+  return l;
 }
 
 export function continuousOpacity(gas: GasState, lambdaAngstrom: number): number {
   const r = rowFor(lambdaAngstrom);
-  const b = boltzmann(gas);
+  return opacityFromRow(gas, r, layerOf(gas), -Math.expm1(-r.hnuk / gas.tK));
+}
+
+/** continuousOpacity from a wavelength's row, the layer's factors and the stimulated-emission factor 1 − e^(−hν/kT). */
+function opacityFromRow(gas: GasState, r: Row, layer: Layer, stim: number): number {
+  const b = layer.b;
   let bf = 0;
-  for (let i = 0; i < N_LEVELS_MAX; i++) bf += r.sigmaN2[i] * b[i];
+  for (let i = r.firstLevel; i < N_LEVELS_MAX; i++) bf += r.sigmaN2[i] * b[i];
   const gff = 1 + r.gffA * (r.gffB * gas.tK + 0.5);
-  const ff = (r.ffNu3 * gff * gas.nElectron * gas.nProton) / Math.sqrt(gas.tK);
-  const stim = -Math.expm1(-r.hnuk / gas.tK);
-  const hm = gas.nHMinus * r.hmBf * stim + gas.nNeutral * gas.pElectron * hMinusFreeFreeAt(r.hmFf, gas.tK);
+  const ff = (r.ffNu3 * gff * gas.nElectron * gas.nProton) / layer.sqrtT;
+  const lt = layer.lt;
+  const hmFf = 1e-26 * 10 ** (r.hmFf[0] + lt * (r.hmFf[1] + lt * r.hmFf[2]));
+  const hm = gas.nHMinus * r.hmBf * stim + gas.nNeutral * gas.pElectron * hmFf;
   return ((bf * gas.nNeutral + ff) * stim + hm + SIGMA_THOMSON_CM2 * gas.nElectron) / gas.rho;
 }
 
@@ -85,6 +107,7 @@ for (let p = 0; p + 1 < ROSS_BOUNDS.length; p++) {
     ROSS_DLN.push(Math.log(ROSS_BOUNDS[p + 1] / ROSS_BOUNDS[p]) / n);
   }
 }
+const ROSS_ROWS = ROSS_LAMBDA.map(makeRow);
 /** hc/k in Å K. */
 const HC_K_ANGSTROM_K = ((H_PLANCK * C_CM_S) / K_BOLTZMANN) * 1e8;
 
@@ -96,13 +119,13 @@ const HC_K_ANGSTROM_K = ((H_PLANCK * C_CM_S) / K_BOLTZMANN) * 1e8;
 export function rosselandMean(gas: GasState): number {
   let num = 0;
   let den = 0;
+  const layer = layerOf(gas);
   for (let i = 0; i < ROSS_LAMBDA.length; i++) {
-    const l = ROSS_LAMBDA[i];
-    const x = HC_K_ANGSTROM_K / (l * gas.tK);
+    const x = HC_K_ANGSTROM_K / (ROSS_LAMBDA[i] * gas.tK);
     if (x > 300) continue;
     const em = -Math.expm1(-x);
-    const w = ((x ** 4 * Math.exp(-x)) / (em * em)) * ROSS_DLN[i];
-    num += w / continuousOpacity(gas, l);
+    const w = ((x ** 4 * (1 - em)) / (em * em)) * ROSS_DLN[i];
+    num += w / opacityFromRow(gas, ROSS_ROWS[i], layer, em);
     den += w;
   }
   return den / num;

@@ -33,6 +33,9 @@ const DONORS: readonly (readonly [number, number, number])[] = [
   [8.152, 4 / 3, 7.51],
 ];
 
+const DONOR_ABUNDANCE = DONORS.map(([, , eps]) => 10 ** (eps - 12));
+const DONOR_ABUNDANCE_SUM = DONOR_ABUNDANCE.reduce((a, y) => a + y, 0);
+
 /**
  * Helium: ionisation energies 24.587 and 54.418 eV (NIST, from memory) and 2U⁺/U⁰ = 4 (He I ¹S, He II ²S),
  * 2U²⁺/U⁺ = 1 (ground-level weights).
@@ -74,10 +77,12 @@ export function gasState(tK: number, pGas: number, metallicity: number): GasStat
   const nTh = thermalElectronDensity(tK);
   const kt = K_BOLTZMANN * tK;
   const phiH = hydrogenSahaFactor(tK);
-  const donors = DONORS.map(([chi, g, eps]) => [10 ** (eps - 12) * zScale, g * nTh * Math.exp(-(chi * EV_ERG) / kt)] as const);
+  const nD = DONORS.length;
+  const yD = DONOR_ABUNDANCE.map((y) => y * zScale);
+  const phiD = DONORS.map(([chi, g]) => g * nTh * Math.exp(-(chi * EV_ERG) / kt));
   const phiHe1 = HE_I[1] * nTh * Math.exp(-(HE_I[0] * EV_ERG) / kt);
   const phiHe2 = HE_II[1] * nTh * Math.exp(-(HE_II[0] * EV_ERG) / kt);
-  const yMetal = donors.reduce((s, [y]) => s + y, 0);
+  const yMetal = DONOR_ABUNDANCE_SUM * zScale;
   const nTot = pGas / kt;
   const nuclei = (ne: number): number => (nTot - ne) / (1 + yHe + yMetal);
   const excess = (lnNe: number): number => {
@@ -86,7 +91,7 @@ export function gasState(tK: number, pGas: number, metallicity: number): GasStat
     const a = phiHe1 / ne;
     const ab = a * (phiHe2 / ne);
     ions += (yHe * (a + 2 * ab)) / (1 + a + ab);
-    for (const [y, phi] of donors) ions += (y * phi) / (phi + ne);
+    for (let k = 0; k < nD; k++) ions += (yD[k] * phiD[k]) / (phiD[k] + ne);
     return nuclei(ne) * ions - ne;
   };
   let lo = Math.log(nTot * 1e-30);

@@ -41,9 +41,14 @@ export function hMinusFreeFreeCoefficients(lambdaAngstrom: number): readonly [nu
   return [f0, f1, f2];
 }
 
+/** log θ = log10(5040 K/T) of the fit, T clamped to its 1400–10 080 K. */
+export function hMinusFreeFreeLogTheta(tK: number): number {
+  return Math.log10(5040 / Math.min(Math.max(tK, 1400), 10080));
+}
+
 /** hMinusFreeFreePerPe from its coefficients at T (K). */
 export function hMinusFreeFreeAt(c: readonly [number, number, number], tK: number): number {
-  const lt = Math.log10(5040 / Math.min(Math.max(tK, 1400), 10080));
+  const lt = hMinusFreeFreeLogTheta(tK);
   return 1e-26 * 10 ** (c[0] + c[1] * lt + c[2] * lt * lt);
 }
 

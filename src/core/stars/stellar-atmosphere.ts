@@ -174,11 +174,18 @@ export function photosphereAt(tEffK: number, logG: number, metallicity = 0.02): 
   const j = Math.min(Math.floor(y), N_G - 2);
   const fx = x - i;
   const fy = y - j;
-  const lerp = (pick: (n: Node) => number): number =>
-    (1 - fx) * ((1 - fy) * pick(node(metallicity, i, j)) + fy * pick(node(metallicity, i, j + 1))) +
-    fx * ((1 - fy) * pick(node(metallicity, i + 1, j)) + fy * pick(node(metallicity, i + 1, j + 1)));
-  const gas = gasState(tEffK, Math.exp(lerp((n) => n.lnP)), metallicity);
-  return { tEffK, logG, metallicity, gas, kappaRoss: rosselandMean(gas), weight: nonGreyWeight(tEffK), scale: Math.exp(lerp((n) => n.lnScale)) };
+  const n00 = node(metallicity, i, j);
+  const n01 = node(metallicity, i, j + 1);
+  const n10 = node(metallicity, i + 1, j);
+  const n11 = node(metallicity, i + 1, j + 1);
+  const w00 = (1 - fx) * (1 - fy);
+  const w01 = (1 - fx) * fy;
+  const w10 = fx * (1 - fy);
+  const w11 = fx * fy;
+  const lnP = w00 * n00.lnP + w01 * n01.lnP + w10 * n10.lnP + w11 * n11.lnP;
+  const lnS = w00 * n00.lnScale + w01 * n01.lnScale + w10 * n10.lnScale + w11 * n11.lnScale;
+  const gas = gasState(tEffK, Math.exp(lnP), metallicity);
+  return { tEffK, logG, metallicity, gas, kappaRoss: rosselandMean(gas), weight: nonGreyWeight(tEffK), scale: Math.exp(lnS) };
 }
 
 /** Opacity ratio r = (κ_ν/κ_R)^w / s of the photosphere at λ (μm): κ_ν against the mean opacity of the grey structure. */
