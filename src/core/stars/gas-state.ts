@@ -66,8 +66,9 @@ export function hMinusSahaFactor(tK: number): number {
 }
 
 /**
- * LTE state at T and P_gas for metallicity Z. Charge balance n_e = n_p + n_He⁺ + 2n_He²⁺ + Σ n_M⁺ is solved by bisection in
- * ln n_e to 1e-10 (H⁻ holds < 1e-6 of the electrons in any photosphere of the model and is left out of it).
+ * LTE state at T and P_gas for metallicity Z. Charge balance n_e = n_p + n_He⁺ + 2n_He²⁺ + Σ n_M⁺ − n_H⁻ is
+ * solved by bisection in ln n_e to 1e-10. H⁻ is counted among the neutral atoms in the level populations
+ * (n_H⁻/n_H0 = n_e/Φ_H⁻ stays below 1e-6 in the model's photospheres).
  */
 export function gasState(tK: number, pGas: number, metallicity: number): GasState {
   if (!(tK > 0 && pGas > 0)) throw new RangeError(`gas state needs T > 0 and P > 0 (got T = ${tK} K, P = ${pGas} dyn/cm²)`);
@@ -77,6 +78,7 @@ export function gasState(tK: number, pGas: number, metallicity: number): GasStat
   const nTh = thermalElectronDensity(tK);
   const kt = K_BOLTZMANN * tK;
   const phiH = hydrogenSahaFactor(tK);
+  const phiHm = hMinusSahaFactor(tK);
   const nD = DONORS.length;
   const yD = DONOR_ABUNDANCE.map((y) => y * zScale);
   const phiD = DONORS.map(([chi, g]) => g * nTh * Math.exp(-(chi * EV_ERG) / kt));
@@ -92,6 +94,7 @@ export function gasState(tK: number, pGas: number, metallicity: number): GasStat
     const ab = a * (phiHe2 / ne);
     ions += (yHe * (a + 2 * ab)) / (1 + a + ab);
     for (let k = 0; k < nD; k++) ions += (yD[k] * phiD[k]) / (phiD[k] + ne);
+    ions -= (ne / (phiH + ne)) * (ne / phiHm); // H⁻ per H nucleus: (n_H0/n_H)(n_e/Φ_H⁻)
     return nuclei(ne) * ions - ne;
   };
   let lo = Math.log(nTot * 1e-30);
@@ -110,7 +113,7 @@ export function gasState(tK: number, pGas: number, metallicity: number): GasStat
     nNeutral,
     nProton: nH - nNeutral,
     nElectron: ne,
-    nHMinus: (nNeutral * ne) / hMinusSahaFactor(tK),
+    nHMinus: (nNeutral * ne) / phiHm,
     pElectron: ne * kt,
     rho: (nH * M_HYDROGEN_G) / x,
   };
