@@ -40,6 +40,10 @@ export { intrinsicUvSlope, UV_SLOPE_LAMBDA_MIN_UM, UV_SLOPE_LAMBDA_MAX_UM } from
 export { cumulativeYoungerThan, currentSfrPerMassFormed, parseSfh, validateSfh, SFH_NAMES } from './sfh.js';
 export type { Sfh } from './sfh.js';
 export { makePopulation } from './population.js';
+export { starState, postTrack, MS_LUMINOSITY_FACTOR, MS_RADIUS_FACTOR, POST_MS_DURATION, POST_MS_LUMINOSITY_FACTOR, POST_MS_TEFF_K, POST_MS_TEFF_MASSIVE_K, POST_MS_MASSIVE_MSUN } from './stellar-phases.js';
+export type { StarState, Track } from './stellar-phases.js';
+export { spectralLibrary } from './stellar-spectra.js';
+export type { SpectralLibrary } from './stellar-spectra.js';
 export type { Population, PopulationOptions, Phases } from './population.js';
 export { makeMassToLightTable, ML_AGE_MIN_MYR, ML_AGE_MAX_MYR } from './mass-to-light.js';
 export type { MassToLightTable } from './mass-to-light.js';
