@@ -94,20 +94,28 @@ function opacityFromRow(gas: GasState, r: Row, layer: Layer, stim: number): numb
 
 /**
  * Wavelengths of the Rosseland mean, Å: midpoints of log-spaced cells from 500 Å to 100 μm in pieces that meet
- * at the hydrogen edges n = 1…5 and the H⁻ threshold, so no cell straddles a jump; with their Δln λ.
+ * at the hydrogen edges n = 1…5 and the H⁻ threshold, so no cell straddles a jump; with their Δln λ and
+ * opacity rows, built on first use.
  */
-const ROSS_BOUNDS = [500, ...[1, 2, 3, 4].map(hydrogenEdgeAngstrom), HMINUS_THRESHOLD_ANGSTROM, hydrogenEdgeAngstrom(5), 1e6];
 const ROSS_PER_DEX = 30;
-const ROSS_LAMBDA: number[] = [];
-const ROSS_DLN: number[] = [];
-for (let p = 0; p + 1 < ROSS_BOUNDS.length; p++) {
-  const n = Math.max(2, Math.ceil(Math.log10(ROSS_BOUNDS[p + 1] / ROSS_BOUNDS[p]) * ROSS_PER_DEX));
-  for (let i = 0; i < n; i++) {
-    ROSS_LAMBDA.push(ROSS_BOUNDS[p] * (ROSS_BOUNDS[p + 1] / ROSS_BOUNDS[p]) ** ((i + 0.5) / n));
-    ROSS_DLN.push(Math.log(ROSS_BOUNDS[p + 1] / ROSS_BOUNDS[p]) / n);
+function buildRosselandGrid(): { lams: number[]; dln: number[]; rows: Row[] } {
+  const bounds = [500, ...[1, 2, 3, 4].map(hydrogenEdgeAngstrom), HMINUS_THRESHOLD_ANGSTROM, hydrogenEdgeAngstrom(5), 1e6];
+  const lams: number[] = [];
+  const dln: number[] = [];
+  for (let p = 0; p + 1 < bounds.length; p++) {
+    const n = Math.max(2, Math.ceil(Math.log10(bounds[p + 1] / bounds[p]) * ROSS_PER_DEX));
+    for (let i = 0; i < n; i++) {
+      lams.push(bounds[p] * (bounds[p + 1] / bounds[p]) ** ((i + 0.5) / n));
+      dln.push(Math.log(bounds[p + 1] / bounds[p]) / n);
+    }
   }
+  return { lams, dln, rows: lams.map(makeRow) };
 }
-const ROSS_ROWS = ROSS_LAMBDA.map(makeRow);
+let rossGridCache: { lams: number[]; dln: number[]; rows: Row[] } | undefined;
+function rosselandGrid(): { lams: number[]; dln: number[]; rows: Row[] } {
+  rossGridCache ??= buildRosselandGrid();
+  return rossGridCache;
+}
 /** hc/k in Å K. */
 const HC_K_ANGSTROM_K = ((H_PLANCK * C_CM_S) / K_BOLTZMANN) * 1e8;
 
@@ -120,6 +128,7 @@ export function rosselandMean(gas: GasState): number {
   let num = 0;
   let den = 0;
   const layer = layerOf(gas);
+  const { lams: ROSS_LAMBDA, dln: ROSS_DLN, rows: ROSS_ROWS } = rosselandGrid();
   for (let i = 0; i < ROSS_LAMBDA.length; i++) {
     const x = HC_K_ANGSTROM_K / (ROSS_LAMBDA[i] * gas.tK);
     if (x > 300) continue;

@@ -32,12 +32,18 @@ function buildRule(): { t: Float64Array; w: Float64Array } {
   return { t: Float64Array.from(t), w: Float64Array.from(w) };
 }
 
-/** Nodes t_k and weights w_k of ∫₀^∞ f(t) 2E_2(t) dt (the flux kernel, normalised to ∫ 2E_2 = 1). */
-export const FLUX_KERNEL = buildRule();
+let rule: { t: Float64Array; w: Float64Array } | undefined;
+
+/** Nodes t_k and weights w_k of ∫₀^∞ f(t) 2E_2(t) dt (the flux kernel, normalised to ∫ 2E_2 = 1), built on first use. */
+export function fluxKernel(): { readonly t: Float64Array; readonly w: Float64Array } {
+  rule ??= buildRule();
+  return rule;
+}
 
 /** ∫₀^∞ f(t) 2E_2(t) dt by the rule above: F_ν/π for the source function f(τ_ν). */
 export function fluxKernelIntegral(f: (tau: number) => number): number {
   let s = 0;
-  for (let k = 0; k < FLUX_KERNEL.t.length; k++) s += FLUX_KERNEL.w[k] * f(FLUX_KERNEL.t[k]);
+  const { t, w } = fluxKernel();
+  for (let k = 0; k < t.length; k++) s += w[k] * f(t[k]);
   return s;
 }

@@ -33,8 +33,6 @@ const DONORS: readonly (readonly [number, number, number])[] = [
   [8.152, 4 / 3, 7.51],
 ];
 
-const DONOR_ABUNDANCE = DONORS.map(([, , eps]) => 10 ** (eps - 12));
-const DONOR_ABUNDANCE_SUM = DONOR_ABUNDANCE.reduce((a, y) => a + y, 0);
 
 /**
  * Helium: ionisation energies 24.587 and 54.418 eV (NIST, from memory) and 2U⁺/U⁰ = 4 (He I ¹S, He II ²S),
@@ -80,11 +78,11 @@ export function gasState(tK: number, pGas: number, metallicity: number): GasStat
   const phiH = hydrogenSahaFactor(tK);
   const phiHm = hMinusSahaFactor(tK);
   const nD = DONORS.length;
-  const yD = DONOR_ABUNDANCE.map((y) => y * zScale);
+  const yD = DONORS.map(([, , eps]) => 10 ** (eps - 12) * zScale);
   const phiD = DONORS.map(([chi, g]) => g * nTh * Math.exp(-(chi * EV_ERG) / kt));
   const phiHe1 = HE_I[1] * nTh * Math.exp(-(HE_I[0] * EV_ERG) / kt);
   const phiHe2 = HE_II[1] * nTh * Math.exp(-(HE_II[0] * EV_ERG) / kt);
-  const yMetal = DONOR_ABUNDANCE_SUM * zScale;
+  const yMetal = yD.reduce((a, y) => a + y, 0);
   const nTot = pGas / kt;
   const nuclei = (ne: number): number => (nTot - ne) / (1 + yHe + yMetal);
   const excess = (lnNe: number): number => {

@@ -21,7 +21,7 @@ export { blackbodyLnu } from './blackbody.js';
 export { balmerJumpDex, BALMER_EDGE_UM } from './balmer-jump.js';
 export { stellarLnu, photosphereAt, photosphereFluxRatio, opacityRatio, nonGreyWeight, NON_GREY_FROM_K, NON_GREY_FULL_K } from './stellar-atmosphere.js';
 export type { Photosphere } from './stellar-atmosphere.js';
-export { fluxKernelIntegral, FLUX_KERNEL } from './formal-solution.js';
+export { fluxKernelIntegral, fluxKernel } from './formal-solution.js';
 export { expIntegralE1, expIntegralE2 } from './exponential-integral.js';
 export { continuousOpacity, rosselandMean, photosphericLayer } from './continuous-opacity.js';
 export { gasState, hydrogenSahaFactor, hMinusSahaFactor, hydrogenMassFraction } from './gas-state.js';

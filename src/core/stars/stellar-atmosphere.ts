@@ -2,7 +2,7 @@ import { C_CM_S, H_PLANCK, K_BOLTZMANN } from '../constants.js';
 import { findRoot } from '../numeric/root-find.js';
 import { blackbodyLnu } from './blackbody.js';
 import { continuousOpacity, photosphericLayer, rosselandMean } from './continuous-opacity.js';
-import { FLUX_KERNEL } from './formal-solution.js';
+import { fluxKernel } from './formal-solution.js';
 import { gasState, type GasState } from './gas-state.js';
 
 /**
@@ -26,24 +26,32 @@ import { gasState, type GasState } from './gas-state.js';
 
 /** hc/k in μm K (h, k, c exact, SI 2019). */
 const HC_K_UM_K = ((H_PLANCK * C_CM_S) / K_BOLTZMANN) * 1e4;
-/** Hydrogen edges, μm: n²/R_H for n = 1…5 (Lyman, Balmer, Paschen, Brackett, Pfund). */
-const EDGES_UM = [1, 2, 3, 4, 5].map((n) => (n * n) / 1.0967758e-3 / 1e4);
 /**
  * Wavelength grid for the flux integral, μm: midpoints of log-spaced cells in pieces that meet at the hydrogen
- * edges, so no cell straddles a jump (the midpoint rule stays second order).
+ * edges n²/R_H for n = 1…5 (Lyman, Balmer, Paschen, Brackett, Pfund), so no cell straddles a jump (the
+ * midpoint rule stays second order); with each cell's Δln λ. Built on first use (no work at module load,
+ * so bundles that never compute a spectrum drop it).
  */
-const LAM_BOUNDS = [0.005, ...EDGES_UM, 60];
 const CELLS_PER_DEX = 30;
-const LAMS: number[] = [];
-const DLN: number[] = [];
-for (let p = 0; p + 1 < LAM_BOUNDS.length; p++) {
-  const lo = LAM_BOUNDS[p];
-  const hi = LAM_BOUNDS[p + 1];
-  const n = Math.max(4, Math.ceil(Math.log10(hi / lo) * CELLS_PER_DEX));
-  for (let i = 0; i < n; i++) {
-    LAMS.push(lo * (hi / lo) ** ((i + 0.5) / n));
-    DLN.push(Math.log(hi / lo) / n);
+function buildFluxGrid(): { lams: number[]; dln: number[] } {
+  const bounds = [0.005, ...[1, 2, 3, 4, 5].map((n) => (n * n) / 1.0967758e-3 / 1e4), 60];
+  const lams: number[] = [];
+  const dln: number[] = [];
+  for (let p = 0; p + 1 < bounds.length; p++) {
+    const lo = bounds[p];
+    const hi = bounds[p + 1];
+    const n = Math.max(4, Math.ceil(Math.log10(hi / lo) * CELLS_PER_DEX));
+    for (let i = 0; i < n; i++) {
+      lams.push(lo * (hi / lo) ** ((i + 0.5) / n));
+      dln.push(Math.log(hi / lo) / n);
+    }
   }
+  return { lams, dln };
+}
+let fluxGridCache: { lams: number[]; dln: number[] } | undefined;
+function fluxGrid(): { lams: number[]; dln: number[] } {
+  fluxGridCache ??= buildFluxGrid();
+  return fluxGridCache;
 }
 
 /** B_ν(T) up to the constant 2h/c² · c³ (λ in μm): 1/(λ³ (e^x − 1)), x = hc/(λkT). */
@@ -54,7 +62,7 @@ function planckShape(tK: number, lambdaUm: number): number {
 
 /** F_ν/π in planckShape units for opacity ratio r = κ_ν/κ̄ (formal solution on the Eddington grey T(τ)). */
 function emergentShape(tEffK: number, r: number, lambdaUm: number): number {
-  const { t, w } = FLUX_KERNEL;
+  const { t, w } = fluxKernel();
   let s = 0;
   for (let k = 0; k < t.length; k++) s += w[k] * planckShape(tEffK * Math.sqrt(Math.sqrt(0.75 * (t[k] / r + 2 / 3))), lambdaUm);
   return s;
@@ -78,6 +86,7 @@ export const NON_GREY_FULL_K = 10000;
 
 /** Σ_i F_ν(λ_i) Δlnλ_i/λ_i (∝ ∫F_ν dν) for opacity ratios r_i/s, r_i = (κ_i/κ_R)^w. */
 function totalFlux(tEffK: number, kappaOverRoss: Float64Array, s: number): number {
+  const { lams: LAMS, dln: DLN } = fluxGrid();
   let f = 0;
   for (let i = 0; i < LAMS.length; i++) f += (DLN[i] / LAMS[i]) * emergentShape(tEffK, kappaOverRoss[i] / s, LAMS[i]);
   return f;
@@ -90,6 +99,7 @@ function totalFlux(tEffK: number, kappaOverRoss: Float64Array, s: number): numbe
  */
 function fluxScale(gas: GasState, kappaRoss: number): number {
   const tEffK = gas.tK;
+  const { lams: LAMS, dln: DLN } = fluxGrid();
   const w = nonGreyWeight(tEffK);
   const ratio = Float64Array.from(LAMS, (l) => (continuousOpacity(gas, l * 1e4) / kappaRoss) ** w);
   let target = 0;
