@@ -1,33 +1,16 @@
-/**
- * Balmer jump of main-sequence stars, D_B = log10[F_ν(3646 Å⁺)/F_ν(3646 Å⁻)] in dex, against T_eff (K),
- * as measured in the Barbier–Chalonge–Divan spectrophotometric system (Chalonge & Divan 1952; T_eff
- * calibration of Zorec et al. 2009, A&A 501, 297). The nodes are from memory, rounded: largest (≈ 0.5 dex)
- * near A0 (9500 K), ≈ 0.3 at B5 (15 000 K), ≈ 0.1 at B0.5 (25 000 K), vanishing for early O stars; linear
- * in T_eff between nodes, constant outside. Dwarf values are used for every star (supergiants have somewhat
- * smaller jumps at the same T_eff; not modelled).
- */
-const NODES: readonly (readonly [number, number])[] = [
-  [4000, 0.02],
-  [5000, 0.05],
-  [7000, 0.3],
-  [9500, 0.5],
-  [12000, 0.4],
-  [15000, 0.3],
-  [18000, 0.2],
-  [25000, 0.1],
-  [32000, 0.04],
-  [40000, 0.02],
-  [60000, 0],
-];
+import { hydrogenEdgeAngstrom } from './hydrogen-opacity.js';
+import { photosphereAt, photosphereFluxRatio } from './stellar-atmosphere.js';
 
-export function balmerJumpDex(tEffK: number): number {
-  if (tEffK <= NODES[0][0]) return NODES[0][1];
-  for (let i = 1; i < NODES.length; i++) {
-    const [t1, d1] = NODES[i];
-    if (tEffK <= t1) {
-      const [t0, d0] = NODES[i - 1];
-      return d0 + ((d1 - d0) * (tEffK - t0)) / (t1 - t0);
-    }
-  }
-  return NODES[NODES.length - 1][1];
+/** The Balmer edge (n = 2 → continuum), μm: 4/R_H = 3647.0 Å (vacuum). */
+export const BALMER_EDGE_UM = hydrogenEdgeAngstrom(2) / 1e4;
+
+/**
+ * Balmer jump of the model photosphere, D_B = log10[F_ν(3647 Å⁺)/F_ν(3647 Å⁻)], dex, at T_eff (K), log g
+ * (cgs) and metallicity Z. Computed, not fitted: it follows from the hydrogen n = 2 bound-free opacity
+ * (Saha–Boltzmann populations) against the rest of the opacity, through the emergent-flux model of
+ * stellar-atmosphere.ts. Dimensionless.
+ */
+export function balmerJumpDex(tEffK: number, logG = 4, metallicity = 0.02): number {
+  const p = photosphereAt(tEffK, logG, metallicity);
+  return Math.log10(photosphereFluxRatio(p, BALMER_EDGE_UM * (1 + 1e-6)) / photosphereFluxRatio(p, BALMER_EDGE_UM * (1 - 1e-6)));
 }

@@ -2,26 +2,28 @@ import { imfMass, imfNumber, type Imf } from './imf.js';
 import { mainSequenceLifetimeMyr } from './lifetime.js';
 import { remnantMassMsun } from './remnant.js';
 import { cumulativeYoungerThan, type Sfh } from './sfh.js';
-import { atmosphereAt, stellarLnu, type AtmosphereRatios } from './stellar-atmosphere.js';
-import { effectiveTemperatureK, zamsLuminosityLsun, zamsRadiusRsun } from './zams.js';
+import { POST_MS_DURATION, postTrack, starState, type Track } from './stellar-phases.js';
+import { spectralLibrary } from './stellar-spectra.js';
 
 /**
  * Our compact population synthesis. The IMF is cut into log-spaced mass bins; each bin is one
- * representative star (the bin's mean mass) with
- *  - a main-sequence phase of length t_MS (Hurley, Pols & Tout 2000) at a mid-main-sequence state:
- *    1.3× the ZAMS luminosity and 1.3× the ZAMS radius (Tout et al. 1996). Stars brighten and swell on
- *    the main sequence (roughly doubling L between ZAMS and TAMS); the factors are our approximation,
- *    chosen while comparing the model with the Kennicutt 1998 UV calibration at 1500 Å, so that
- *    comparison constrains them rather than tests them (README, "The population model");
+ * representative star (the bin's mean mass; its states in stellar-phases.ts) with
+ *  - a main-sequence phase of length t_MS (Hurley, Pols & Tout 2000) at one mid-main-sequence state:
+ *    1.3× the ZAMS luminosity and 2.0× the ZAMS radius (Tout et al. 1996), so T_eff is 0.76× its ZAMS value.
+ *    Stars brighten and swell on the main sequence (roughly doubling L and tripling R between ZAMS and TAMS
+ *    for massive stars); the two factors are our approximation, chosen on a grid while comparing the model
+ *    with the Kennicutt 1998 UV calibration at 1500 Å, the UV-slope window and the band-to-band mass
+ *    consistency, so those comparisons constrain them rather than test them (README, "The population model");
  *  - a post-main-sequence phase of 0.1 t_MS at twice the ZAMS luminosity, as a red giant or
- *    supergiant (T_eff = 4500 K) below 15 Msun and a blue supergiant (T_eff = 20 000 K) above
- *    (our approximation of core-helium burning; the 20 000 K was set with the UV calibrations in
- *    view, so it is calibrated, not independent of them);
+ *    supergiant (T_eff = 4500 K) below 15 Msun and a blue supergiant (T_eff = 12 000 K) above
+ *    (our approximation of core-helium burning; the 12 000 K was set with the same checks in view, so it is
+ *    calibrated, not independent of them);
  *  - then a remnant (remnant.ts), the rest of its mass returned to the gas.
- * Each star radiates the spectrum of stellar-atmosphere.ts: a photosphere with the hydrogen Lyman and
- * Balmer continua (Eddington grey structure, Eddington–Barbier fluxes, measured Balmer jumps), not a
- * black body. Any SFH enters through C(a), the fraction of mass younger than a, so each bin's
- * contribution is exact for piecewise-constant stellar phases. Everything is per Msun ever formed.
+ * Each star radiates the spectrum of stellar-atmosphere.ts for its T_eff and surface gravity: a photosphere
+ * with the LTE continuous opacity of hydrogen (every bound-free continuum, free-free), H⁻ and electron
+ * scattering, not a black body; the spectra come from stellar-spectra.ts, exact on a fine mass grid and
+ * interpolated to each bin's mass. Any SFH enters through C(a), the fraction of mass younger than a, so each
+ * bin's contribution is exact for piecewise-constant stellar phases. Everything is per Msun ever formed.
  */
 export interface PopulationOptions {
   /** Metallicity (mass fraction), default 0.02. */
@@ -29,14 +31,6 @@ export interface PopulationOptions {
   /** Number of mass bins, default 600. */
   readonly bins?: number;
 }
-
-export const MS_LUMINOSITY_FACTOR = 1.3;
-export const MS_RADIUS_FACTOR = 1.4;
-export const POST_MS_DURATION = 0.1;
-export const POST_MS_LUMINOSITY_FACTOR = 2;
-export const POST_MS_TEFF_K = 4500;
-export const POST_MS_TEFF_MASSIVE_K = 12000;
-export const POST_MS_MASSIVE_MSUN = 15;
 
 /** Per mass bin: fraction of the mass formed that is still on the main sequence (msEnd) or not yet a remnant (postEnd). */
 export interface Phases {
@@ -87,8 +81,8 @@ export function makePopulation(imf: Imf, opts: PopulationOptions = {}): Populati
   const tMs = new Float64Array(n);
   const rem = new Float64Array(n);
   const lMs = new Float64Array(n);
-  const rMs = new Float64Array(n);
-  const tEff = new Float64Array(n);
+  const lPost = new Float64Array(n);
+  const post: Track[] = [];
   for (let i = 0; i < n; i++) {
     number[i] = imfNumber(imf, uniq[i], uniq[i + 1]);
     mass[i] = imfMass(imf, uniq[i], uniq[i + 1]);
@@ -96,34 +90,23 @@ export function makePopulation(imf: Imf, opts: PopulationOptions = {}): Populati
     mStar[i] = m;
     tMs[i] = mainSequenceLifetimeMyr(m, Z);
     rem[i] = remnantMassMsun(m);
-    lMs[i] = MS_LUMINOSITY_FACTOR * zamsLuminosityLsun(m, Z);
-    rMs[i] = MS_RADIUS_FACTOR * zamsRadiusRsun(m, Z);
-    tEff[i] = effectiveTemperatureK(lMs[i], rMs[i]);
+    post.push(postTrack(m));
+    lMs[i] = starState('ms', m, Z).lLsun;
+    lPost[i] = starState(post[i], m, Z).lLsun;
   }
-  // Photospheres and post-main-sequence radii: fixed per bin, reused at every wavelength.
-  const atmPostRed = atmosphereAt(POST_MS_TEFF_K);
-  const atmPostBlue = atmosphereAt(POST_MS_TEFF_MASSIVE_K);
-  const atmMs: AtmosphereRatios[] = [];
-  const atmPost: AtmosphereRatios[] = [];
-  const rPost = new Float64Array(n);
-  for (let i = 0; i < n; i++) {
-    atmMs.push(atmosphereAt(tEff[i]));
-    const massive = mStar[i] >= POST_MS_MASSIVE_MSUN;
-    atmPost.push(massive ? atmPostBlue : atmPostRed);
-    const lPost = (POST_MS_LUMINOSITY_FACTOR / MS_LUMINOSITY_FACTOR) * lMs[i];
-    rPost[i] = Math.sqrt(lPost) * (5772 / (massive ? POST_MS_TEFF_MASSIVE_K : POST_MS_TEFF_K)) ** 2; // Stefan–Boltzmann in solar units
-  }
+  // Spectra of one star per track, shared by every population of this metallicity (stellar-spectra.ts).
+  const library = spectralLibrary(Z);
   const lnuCache = new Map<number, { ms: Float64Array; post: Float64Array }>();
   const perStarLnu = (lambdaUm: number): { ms: Float64Array; post: Float64Array } => {
     const hit = lnuCache.get(lambdaUm);
     if (hit) return hit;
     const ms = new Float64Array(n);
-    const post = new Float64Array(n);
+    const postLnu = new Float64Array(n);
     for (let i = 0; i < n; i++) {
-      ms[i] = stellarLnu(rMs[i], atmMs[i], lambdaUm);
-      post[i] = stellarLnu(rPost[i], atmPost[i], lambdaUm);
+      ms[i] = library.lnu('ms', mStar[i], lambdaUm);
+      postLnu[i] = library.lnu(post[i], mStar[i], lambdaUm);
     }
-    const v = { ms, post };
+    const v = { ms, post: postLnu };
     if (lnuCache.size > 256) lnuCache.clear();
     lnuCache.set(lambdaUm, v);
     return v;
@@ -150,7 +133,7 @@ export function makePopulation(imf: Imf, opts: PopulationOptions = {}): Populati
     return s;
   };
   const lbolMs = lMs;
-  const lbolPost = lMs.map((l) => (POST_MS_LUMINOSITY_FACTOR / MS_LUMINOSITY_FACTOR) * l);
+  const lbolPost = lPost;
   return {
     imf,
     metallicity: Z,

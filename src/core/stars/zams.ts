@@ -1,4 +1,4 @@
-import { TSUN_K } from '../constants.js';
+import { RSUN_CM, TSUN_K } from '../constants.js';
 
 /**
  * Zero-age main-sequence luminosity and radius, Tout, Pols, Eggleton & Han 1996, MNRAS 281, 257,
@@ -54,4 +54,12 @@ export function zamsRadiusRsun(massMsun: number, metallicity = 0.02): number {
 /** T_eff = 5772 K (L/Lsun)^(1/4) (R/Rsun)^(−1/2) (Stefan–Boltzmann with the IAU 2015 nominal Sun), K. */
 export function effectiveTemperatureK(lLsun: number, rRsun: number): number {
   return TSUN_K * lLsun ** 0.25 * rRsun ** -0.5;
+}
+
+/**
+ * Surface gravity log10(GM/R²), cgs, for M in Msun and R in Rsun, with the IAU 2015 nominal GM_sun =
+ * 1.3271244e26 cm³ s⁻² and R_sun = 6.957e10 cm (log g_sun = 4.438).
+ */
+export function surfaceLogG(massMsun: number, rRsun: number): number {
+  return Math.log10((1.3271244e26 * massMsun) / (RSUN_CM * rRsun) ** 2);
 }

@@ -2,13 +2,15 @@ import { describe, expect, it } from 'vitest';
 import { makeBackground, PLANCK18 } from '../../../src/core/cosmology/index.js';
 import {
   apparentFromAbsolute,
-  atmosphereFluxRatio,
-  balmerJumpDex,
   estimateMass,
   intrinsicUvSlope,
   makePopulation,
   makePopulationCache,
+  photosphereAt,
+  postTrack,
   resolveImf,
+  starState,
+  stellarLnu,
   type Sfh,
 } from '../../../src/core/stars/index.js';
 
@@ -50,43 +52,11 @@ describe('intrinsic UV slope of the population model', () => {
 });
 
 describe('UV SFR calibration across the 1500–2800 Å range (Kennicutt 1998, ARA&A 36, 189: SFR = 1.4e-28 L_ν over 1500–2800 Å, Salpeter 0.1–100, constant SFR ≳ 100 Myr)', () => {
-  it('1500 Å within 10% (the model’s main-sequence factors were chosen with this number in view: a calibration, not a test)', () => {
+  it('1500 Å within 10% (the model’s main-sequence factors and blue-supergiant T_eff were chosen with this number in view: a calibration, not a test)', () => {
     expect(rel(sfrPerLnu(0.15), 1.4e-28)).toBeLessThan(0.1);
   });
-  it('2800 Å within 20% (not used in choosing any model number: a test)', () => {
+  it('2800 Å within 20% (printed beside the calibration scan but never the limit on any choice: a test, though not a blind one)', () => {
     expect(rel(sfrPerLnu(0.28), 1.4e-28)).toBeLessThan(0.2);
-  });
-});
-
-describe('hot-star photospheres: hydrogen continua instead of black bodies', () => {
-  it('the Balmer jump of the model photosphere equals the measured one it was solved for (balmer-jump.ts), to 0.02 dex', () => {
-    for (const t of [12000, 15000, 20000, 30000]) {
-      const d = Math.log10(atmosphereFluxRatio(t, 0.3647) / atmosphereFluxRatio(t, 0.3645));
-      // (r_P, j) are solved on a log-T_eff grid and interpolated between nodes, hence 0.02 dex rather than exact
-      expect(Math.abs(d - balmerJumpDex(t))).toBeLessThan(0.02);
-    }
-  });
-  it('flux is conserved: ∫F_ν dν of the photosphere equals σT_eff⁴ (Stefan–Boltzmann) to 1% for 3000–60 000 K (measured: ≤ 0.6%)', () => {
-    for (const t of [3000, 4500, 9000, 15000, 25000, 40000, 60000]) {
-      let model = 0;
-      let bb = 0;
-      const n = 4000;
-      for (let i = 0; i < n; i++) {
-        const lam = 0.005 * (60 / 0.005) ** ((i + 0.5) / n);
-        const x = 14387.77 / (lam * t);
-        const b = x > 700 ? 0 : 1 / (lam ** 4 * Math.expm1(x));
-        bb += b;
-        model += b * atmosphereFluxRatio(t, lam);
-      }
-      expect(rel(model, bb)).toBeLessThan(0.01);
-    }
-  });
-  it('hot stars are brighter than a black body of their T_eff between 1300 and 2600 Å and bluer there; the Lyman continuum is depressed (physics of the Lyman and Balmer jumps; common practice, no source)', () => {
-    for (const t of [25000, 35000, 45000]) {
-      expect(atmosphereFluxRatio(t, 0.13)).toBeGreaterThan(1);
-      expect(atmosphereFluxRatio(t, 0.13)).toBeGreaterThan(atmosphereFluxRatio(t, 0.26));
-      expect(atmosphereFluxRatio(t, 0.08)).toBeLessThan(1);
-    }
   });
 });
 
@@ -105,12 +75,33 @@ describe('M_UV and a band magnitude give the same mass for a β = −2.2 galaxy 
   };
   for (const z of [8, 10, 12]) {
     for (const imf of ['salpeter', 'chabrier']) {
-      it(`z = ${z}, ${imf}: within 0.03 dex at rest 1300–2400 Å`, () => {
-        for (const lam of [0.13, 0.14, 0.16, 0.18, 0.2, 0.22, 0.24]) expect(Math.abs(offset(imf, z, lam))).toBeLessThan(0.03);
+      it(`z = ${z}, ${imf}: within 0.03 dex at every rest wavelength 1300–2600 Å`, () => {
+        for (const lam of [0.13, 0.14, 0.16, 0.18, 0.2, 0.22, 0.24, 0.25, 0.26]) expect(Math.abs(offset(imf, z, lam))).toBeLessThan(0.03);
       });
     }
   }
-  it('known shortfall at 2500–2600 Å: 0.03–0.04 dex (the model spectrum bends down toward the Balmer edge); guarded at 0.045 dex, z = 8–12', () => {
-    for (const z of [8, 10, 12]) for (const lam of [0.25, 0.26]) expect(Math.abs(offset('salpeter', z, lam))).toBeLessThan(0.045);
+});
+
+describe('the shared spectral library (stellar-spectra.ts) against each bin’s own star', () => {
+  it('interpolating L_ν between grid masses changes the population’s L_ν at 1300–2800 Å and 1 μm by < 1e-4 (Salpeter and Chabrier, constant SFR, 20 and 100 Myr; identity of the two routes)', () => {
+    for (const name of ['salpeter', 'chabrier']) {
+      const p = makePopulation(resolveImf(name));
+      for (const age of [20, 100]) {
+        const ph = p.phases(csf, age);
+        for (const lam of [0.13, 0.15, 0.2, 0.26, 0.28, 1.0]) {
+          let exact = 0;
+          for (let i = 0; i < p.number.length; i++) {
+            const m = p.mStar[i];
+            const own = (track: 'ms' | 'post-red' | 'post-blue'): number => {
+              const s = starState(track, m, 0.02);
+              return stellarLnu(s.rRsun, photosphereAt(s.tEffK, s.logG, 0.02), lam);
+            };
+            exact += p.number[i] * (own('ms') * ph.msEnd[i] + own(postTrack(m)) * (ph.postEnd[i] - ph.msEnd[i]));
+          }
+          // Tolerance: linear interpolation in (log m, ln L_ν) on a 0.004-dex grid, measured ≤ 1.4e-5 (3–1000 Myr, 1250 Å–1 μm).
+          expect(rel(p.lnuAt(ph, lam), exact)).toBeLessThan(1e-4);
+        }
+      }
+    }
   });
 });
