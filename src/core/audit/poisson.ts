@@ -25,11 +25,15 @@ export function poissonAtLeast(k: number, mu: number): number {
     }
     return Math.min(sum, 1);
   }
-  let lnTerm = -mu;
+  // μ ≥ k: the lower sum Σ_{i<k}, from its largest term (i = k − 1) downwards; terms fall by i/μ each
+  // step, so it stops after O(√μ) terms (a sum from i = 0 would cost k terms at every call).
+  let lnTerm = -mu + (k - 1) * lnMu - lnFactorial(k - 1);
   let lower = 0;
-  for (let i = 0; i < k; i++) {
-    lower += Math.exp(lnTerm);
-    lnTerm += lnMu - Math.log(i + 1);
+  for (let i = k - 1; i >= 0; i--) {
+    const t = Math.exp(lnTerm);
+    lower += t;
+    if (t < 1e-17 * lower || t === 0) break;
+    lnTerm += Math.log(i) - lnMu;
   }
   return Math.max(0, 1 - lower);
 }

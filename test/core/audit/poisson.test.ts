@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { poissonAtLeast, poissonMeanForChance } from '../../../src/core/audit/poisson.js';
+import tail from '../../fixtures/scipy/poisson-tail.json';
 
 const rel = (a: number, b: number): number => Math.abs(a / b - 1);
 const fact = (k: number): number => (k <= 1 ? 1 : k * fact(k - 1));
@@ -34,5 +35,14 @@ describe('P(N ≥ k) of a Poisson count (regularised lower incomplete gamma; clo
   it('poissonMeanForChance inverts P(k, μ): k = 1 gives −ln(1 − p) exactly; k = 1–20 round-trip to 1e-9', () => {
     expect(poissonMeanForChance(1, 0.003)).toBe(-Math.log1p(-0.003));
     for (const k of [1, 2, 5, 20]) for (const p of [0.003, 0.16, 0.5, 0.997]) expect(Math.abs(poissonAtLeast(k, poissonMeanForChance(k, p)) - p)).toBeLessThan(1e-9 * Math.max(p, 1e-3));
+  });
+  it('large k (a sample of up to 10⁵ galaxies): P(k, μ) against scipy.special.gammainc, k = 2–10⁵, μ/k = 0.5–2 (test/fixtures/scipy/poisson_tail.py)', () => {
+    // Tolerance 1e-9 relative + 1e-14 absolute: Stirling's series for ln k! (k > 170) is truncated after
+    // 1/(360 k³) (next term ~1/(1260 k⁵)), and the O(√k) summed terms each carry rounding ~1e-16.
+    expect(tail.cases.length).toBe(49);
+    for (const c of tail.cases) expect(Math.abs(poissonAtLeast(c.k, c.mu) - c.p_at_least), `k = ${c.k}, μ = ${c.mu}`).toBeLessThan(1e-9 * c.p_at_least + 1e-14);
+  });
+  it('poissonMeanForChance round-trips at k = 10⁵ too (the sample level asks it once per galaxy)', () => {
+    for (const p of [0.003, 0.5, 0.997]) expect(Math.abs(poissonAtLeast(100000, poissonMeanForChance(100000, p)) - p)).toBeLessThan(1e-9);
   });
 });
