@@ -15,25 +15,25 @@ export function poissonAtLeast(k: number, mu: number): number {
   const lnMu = Math.log(mu);
   if (mu < k) {
     // upper tail from i = k: terms fall once i > μ
-    let lnTerm = -mu + k * lnMu - lnFactorial(k);
+    // The first term in the log domain, the rest by the ratio μ/(i + 1) < 1 (no exp or log per term).
+    let t = Math.exp(-mu + k * lnMu - lnFactorial(k));
     let sum = 0;
-    for (let i = k; i < k + 10000; i++) {
-      const t = Math.exp(lnTerm);
+    for (let i = k; i < k + 10000 && t > 0; i++) {
       sum += t;
       if (t < 1e-17 * sum) break;
-      lnTerm += lnMu - Math.log(i + 1);
+      t *= mu / (i + 1);
     }
     return Math.min(sum, 1);
   }
   // μ ≥ k: the lower sum Σ_{i<k}, from its largest term (i = k − 1) downwards; terms fall by i/μ each
   // step, so it stops after O(√μ) terms (a sum from i = 0 would cost k terms at every call).
-  let lnTerm = -mu + (k - 1) * lnMu - lnFactorial(k - 1);
+  // The first term in the log domain, the rest by the ratio i/μ < 1.
+  let t = Math.exp(-mu + (k - 1) * lnMu - lnFactorial(k - 1));
   let lower = 0;
-  for (let i = k - 1; i >= 0; i--) {
-    const t = Math.exp(lnTerm);
+  for (let i = k - 1; i >= 0 && t > 0; i--) {
     lower += t;
-    if (t < 1e-17 * lower || t === 0) break;
-    lnTerm += Math.log(i) - lnMu;
+    if (t < 1e-17 * lower) break;
+    t *= i / mu;
   }
   return Math.max(0, 1 - lower);
 }
