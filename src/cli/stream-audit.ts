@@ -126,6 +126,13 @@ export async function streamAudit(csv: string, choices: AuditChoices, jobs: numb
   if (pending !== undefined) out(pending);
   const sample = sampleLevel(prep, tally);
   assertFinite(sample, '$.sample');
-  await writePieces(['  ],\n  "sample": ', ...jsonPieces(sample, '  '), `,\n  "caution": ${JSON.stringify(AUDIT_CAUTION)},`], out);
+  await writePieces(
+    (function* () {
+      yield '  ],\n  "sample": ';
+      yield* jsonPieces(sample, '  ');
+      yield `,\n  "caution": ${JSON.stringify(AUDIT_CAUTION)},`;
+    })(),
+    out,
+  );
   await writeRecord(auditRecord(prep), out);
 }
