@@ -12,6 +12,7 @@ import { DEFAULT_CHOICES } from './default-choices.js';
 import { download } from './downloads.js';
 import { canRedo, canUndo, record, redo, startHistory, undo, type EditHistory, type HistoryLimits } from './edit-history.js';
 import type { SurveyChoices } from './survey-editor.js';
+import './audit-summary.js';
 import type { DisputedMap } from '../core/audit/disputed-map.js';
 import './choice-panel.js';
 import './results-table.js';
@@ -106,7 +107,6 @@ export class BaryonAuditApp extends LitElement {
     label.button:focus-within { outline: 2px solid #0072B2; }
     .visually-hidden { position: absolute; width: 1px; height: 1px; overflow: hidden; clip-path: inset(50%); white-space: nowrap; }
     section { position: relative; }
-    pre.summary { white-space: pre-wrap; overflow-wrap: anywhere; font-size: 0.85rem; background: #f7f7f7; padding: 0.6rem; border: 1px solid #ddd; }
     progress { width: min(12rem, 40vw); }
     section { min-width: 0; }
     .status, .bench { flex-wrap: wrap; }
@@ -513,7 +513,7 @@ export class BaryonAuditApp extends LitElement {
                 <label class="button">Import JSON record…<input class="visually-hidden" type="file" accept=".json,application/json" @change=${this.importRecord} aria-label="Import a JSON record" /></label>
               </div>
               <h2>Summary</h2>
-              <pre class="summary">${resp?.markdown ?? ''}</pre>
+              <audit-summary .markdown=${resp?.markdown ?? ''}></audit-summary>
             </div>
           </div>
         </section>
