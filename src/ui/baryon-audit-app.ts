@@ -11,6 +11,7 @@ import { headlineOf, type PanelChoices, type UvSlopeView } from './choice-panel.
 import { DEFAULT_CHOICES } from './default-choices.js';
 import { download } from './downloads.js';
 import { canRedo, canUndo, record, redo, startHistory, undo, type EditHistory, type HistoryLimits } from './edit-history.js';
+import { keepSameProblems } from './row-problems.js';
 import type { SurveyChoices } from './survey-editor.js';
 import './audit-summary.js';
 import type { DisputedMap } from '../core/audit/disputed-map.js';
@@ -86,8 +87,8 @@ export class BaryonAuditApp extends LitElement {
   private get choices(): PanelChoices {
     return this.hist.present.choices;
   }
-  /** The rows' problems of the response on show (one array per response, so the editor is not re-rendered by progress). */
-  private problemCache: { result?: object; problems: RowProblem[] } = { problems: [] };
+  /** The rows' problems of the response on show (the same array while they say the same, so neither progress nor a run that finds the same problems re-renders the editor). */
+  private problemCache: { result?: object; problems: readonly RowProblem[] } = { problems: [] };
 
   static styles = css`
     :host { display: block; font-family: system-ui, sans-serif; color: #111; }
@@ -416,7 +417,7 @@ export class BaryonAuditApp extends LitElement {
     const result = resp?.result;
     if (this.problemCache.result !== result) {
       const problems = result ? result.galaxies.flatMap((g) => g.errors) : [];
-      this.problemCache = { result, problems: problems.length || this.problemCache.problems.length ? problems : this.problemCache.problems };
+      this.problemCache = { result, problems: keepSameProblems(this.problemCache.problems, problems) };
     }
     const problems = this.problemCache.problems;
     let figs: ChartModel[] = [];

@@ -247,6 +247,33 @@ describe('the bench: editing the sample', () => {
     app.remove();
   });
 
+  it('keeps the text being typed into a cell while a run\'s results arrive, and Enter commits it', async () => {
+    const app = await freshApp();
+    // Row 1's z is edited and the user moves on to row 2's id: z's change event starts a run whose results
+    // bring a new problem (z_hi = 7.55 is below z = 9.99). The first letters are typed in the same task,
+    // so they are in the cell, uncommitted, before those results can arrive.
+    const ran = nextAudit(app);
+    const z = cell(app, 'row 1, z');
+    z.value = '9.99';
+    z.dispatchEvent(new Event('change'));
+    const id2 = cell(app, 'row 2, id');
+    id2.focus();
+    id2.value = 'NEW';
+    id2.dispatchEvent(new InputEvent('input', { bubbles: true, composed: true, inputType: 'insertText', data: 'NEW' }));
+    await ran;
+    await settle(app);
+    expect(cell(app, 'row 1, z_hi').getAttribute('aria-invalid'), "the run's problems reached the table").to.equal('true');
+    expect(cell(app, 'row 2, id').value).to.equal('NEW');
+    expect(deep(app, 'sample-editor input:focus')[0]?.getAttribute('aria-label')).to.equal('row 2, id');
+    id2.setSelectionRange(3, 3);
+    await sendKeys({ type: '-ID' });
+    await sendKeys({ press: 'Enter' });
+    await caughtUp(app, 'the results include the renamed galaxy');
+    expect(ids(app)[1]).to.equal('NEW-ID');
+    expect(verdictIds(app)).to.include('NEW-ID');
+    app.remove();
+  });
+
   it('brings the demo back with "Demo sample", and Undo returns to your own sample and survey', async () => {
     const app = await freshApp();
     const file = deep(app, 'sample-editor input[type=file]')[0] as HTMLInputElement;
