@@ -433,11 +433,15 @@ export class BaryonAuditApp extends LitElement {
     const invalid = Object.values(this.invalid).flat();
     const stale = !!result && invalid.length > 0;
     const pending = !!result && !stale && !this.upToDate();
+    // Behind: the results are for earlier inputs and no run is on its way (it was cancelled, or it failed).
+    const behind = pending && this.ctl.status !== 'running';
     const outClass = stale ? 'stale' : pending ? 'pending' : '';
     const staleText = stale
       ? `The results, figures and summary below are out of date: ${invalid.map((p) => p.message).join('; ')}. Fix the highlighted choice to update them.`
-      : pending
-        ? 'The results below are being updated for your latest edit.'
+      : behind
+        ? 'The results below are for earlier inputs: the run for your latest edit did not finish. Run again to update them.'
+        : pending
+          ? 'The results below are being updated for your latest edit.'
         : '';
     const h = this.hist;
     return html`
@@ -476,13 +480,17 @@ export class BaryonAuditApp extends LitElement {
                 ? html`<span>Audited ${result!.sample.accepted} galaxies (${result!.sample.rejected} rejected) in ${(resp.elapsedMs / 1000).toFixed(2)} s.</span>`
                 : nothing}
           </div>
-          ${this.ctl.message && this.ctl.status !== 'error' && !/restarted/.test(this.ctl.message) ? html`<p class="notice" role="status">${this.ctl.message}</p>` : nothing}
+          ${this.ctl.message && this.ctl.status !== 'error' && !/restarted/.test(this.ctl.message)
+            ? html`<p class="notice" role="status">${this.ctl.message}${behind
+                  ? html`; the results below are for earlier inputs. <button type="button" @click=${() => this.schedule(0)}>Run again with the current inputs</button>`
+                  : nothing}</p>`
+            : nothing}
           ${this.ctl.message && (this.ctl.status === 'error' || /restarted/.test(this.ctl.message))
             ? html`<p class="error" role="alert">${this.ctl.message} Your sample and choices are kept as you left them.
                 <button type="button" @click=${() => this.schedule(0)}>Run again with the current inputs</button></p>`
             : nothing}
           <p class="visually-hidden" aria-live="polite" id="stale-text">${staleText}</p>
-          <div class="out ${outClass}" data-state=${stale ? 'out-of-date' : pending ? 'updating' : 'current'}>
+          <div class="out ${outClass}" data-state=${stale ? 'out-of-date' : behind ? 'behind' : pending ? 'updating' : 'current'}>
             ${stale
               ? html`<p class="stale-badge" aria-hidden="true">out of date — fix the highlighted choice
                   <button type="button" @click=${() => this.focusFirstInvalid()}>go to it</button></p>`

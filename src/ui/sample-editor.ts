@@ -1,10 +1,10 @@
 import { LitElement, css, html, nothing, type PropertyValues } from 'lit';
 import { customElement, property, state } from 'lit/decorators.js';
-import { live } from 'lit/directives/live.js';
 import { repeat } from 'lit/directives/repeat.js';
 import type { RowProblem } from '../core/audit/index.js';
 import { decodeText } from '../core/audit/text-decoding.js';
 import { FieldHelp, helpStyles } from './field-help.js';
+import { fieldValue } from './field-value.js';
 import { appendWithHeader, readPasteBlock } from './paste-block.js';
 import { auditRowNumbers, csvFromGrid, gridFromCsv, isBlankRow, type SampleGrid } from './sample-table.js';
 
@@ -26,8 +26,9 @@ function problemColumn(p: RowProblem, header: readonly string[]): number {
  * <sample-editor>: the sample as a table. Import by file picker or drag-and-drop, paste a block from a
  * spreadsheet (appended; a block headed by other columns asks whether to replace or append), add, edit
  * and delete rows inline. Cells named in `problems` are marked and carry the reason (shown on focus too);
- * rejected rows stay visible. The grid is one tab stop: arrow keys, Page Up/Down, Ctrl+Home/End and
- * Enter move between cells. Large samples draw only the rows in view.
+ * rejected rows stay visible. The text being typed into a cell stays until it is committed (Enter, leaving
+ * the cell) or undone (Escape), whatever re-renders the table meanwhile (fieldValue). The grid is one tab
+ * stop: arrow keys, Page Up/Down, Ctrl+Home/End and Enter move between cells. Large samples draw only the rows in view.
  * Fires `sample-change` (detail: { csv, what, fileName? }) on every user edit; `what` names the edit.
  */
 @customElement('sample-editor')
@@ -51,13 +52,6 @@ export class SampleEditor extends LitElement {
   private byRow = new Map<number, RowProblem[]>();
   private allProblems: { r: number; c: number; p: RowProblem }[] = [];
   private blank = 0;
-  /**
-   * The cell being typed into and its text, not yet committed (Enter, leaving the cell, or scrolling it away
-   * commit it). Every render draws it with this text: a re-render while the user types (a run's results
-   * bringing new problems, another cell committed) must not put the committed value back over it. A sample
-   * that comes from outside (undo, import, demo) drops it.
-   */
-  private draft?: { r: number; c: number; text: string };
   private readonly help = new FieldHelp(this);
 
   static styles = [
@@ -102,7 +96,6 @@ export class SampleEditor extends LitElement {
 
   protected willUpdate(changed: PropertyValues<this>): void {
     if (changed.has('csv') && this.csv !== this.gridCsv) {
-      this.draft = undefined;
       this.grid = gridFromCsv(this.csv);
       this.gridCsv = this.csv;
       this.active = { r: Math.min(this.active.r, Math.max(0, this.grid.rows.length - 1)), c: Math.min(this.active.c, this.grid.header.length) };
@@ -127,12 +120,7 @@ export class SampleEditor extends LitElement {
     this.allProblems.sort((a, b) => a.r - b.r || a.c - b.c);
   }
 
-  /**
-   * Sends a new sample on. Only an edit of one cell keeps the text being typed into another cell (its row
-   * and column still name it); anything else that changes the table drops it.
-   */
-  private emit(g: SampleGrid, what: string, extra: Record<string, unknown> = {}, keepDraft = false): void {
-    if (!keepDraft) this.draft = undefined;
+  private emit(g: SampleGrid, what: string, extra: Record<string, unknown> = {}): void {
     this.grid = g;
     this.gridCsv = csvFromGrid(g);
     this.csv = this.gridCsv;
@@ -217,26 +205,7 @@ export class SampleEditor extends LitElement {
     const row = rows[r].slice();
     row[c] = value;
     rows[r] = row;
-    const d = this.draft;
-    this.emit({ header: g.header, rows }, `edit row ${r + 1}, ${g.header[c]}`, {}, !!d && (d.r !== r || d.c !== c));
-  }
-
-  /** Commits the cell's text (the change event, Enter, scrolling away), or forgets the draft if it is unchanged. */
-  private commitCell(r: number, c: number, value: string): void {
-    if (this.draft?.r === r && this.draft.c === c) this.draft = undefined;
-    this.edit(r, c, value);
-  }
-
-  /** Leaving a cell commits its text (the change event has done so already, unless nothing changed since focus). */
-  private onGridFocusOut(e: FocusEvent): void {
-    const t = e.composedPath()[0];
-    const d = this.draft;
-    if (d && t instanceof HTMLInputElement && Number(t.dataset.r) === d.r && Number(t.dataset.c) === d.c) this.commitCell(d.r, d.c, t.value);
-  }
-
-  private onGridInput(e: Event): void {
-    const t = e.composedPath()[0];
-    if (t instanceof HTMLInputElement && t.dataset.r !== undefined) this.draft = { r: Number(t.dataset.r), c: Number(t.dataset.c), text: t.value };
+    this.emit({ header: g.header, rows }, `edit row ${r + 1}, ${g.header[c]}`);
   }
 
   private addRow(): void {
@@ -289,7 +258,7 @@ export class SampleEditor extends LitElement {
   /** A cell being typed into that is about to be scrolled away keeps its text: commit it. */
   private commitDraft(): void {
     const a = (this.renderRoot as ShadowRoot).activeElement;
-    if (a instanceof HTMLInputElement && a.dataset.r !== undefined) this.commitCell(Number(a.dataset.r), Number(a.dataset.c), a.value);
+    if (a instanceof HTMLInputElement && a.dataset.r !== undefined) this.edit(Number(a.dataset.r), Number(a.dataset.c), a.value);
   }
 
   protected updated(): void {
@@ -380,15 +349,12 @@ export class SampleEditor extends LitElement {
       case 'End': if (mod) to = [this.grid.rows.length - 1, c]; else if (!input) to = [r, this.grid.header.length]; break;
       case 'Enter':
         if (input) {
-          this.commitCell(r, c, input.value);
+          this.edit(r, c, input.value);
           to = [r + (e.shiftKey ? -1 : 1), c];
         }
         break;
       case 'Escape':
-        if (input) {
-          if (this.draft?.r === r && this.draft.c === c) this.draft = undefined;
-          input.value = this.grid.rows[r]?.[c] ?? '';
-        }
+        if (input) input.value = this.grid.rows[r]?.[c] ?? '';
         break;
     }
     if (to && (to[0] !== r || to[1] !== c)) {
@@ -415,18 +381,17 @@ export class SampleEditor extends LitElement {
       ${row.map((cell, c) => {
         const col = g.header[c];
         const reason = bad.get(c) ?? (c === 0 && rowWide.length ? rowWide.map((p) => `${p.column}: ${p.reason}`).join('; ') : undefined);
-        const typed = this.draft?.r === r && this.draft.c === c ? this.draft.text : cell;
         return html`<td class=${reason ? 'bad' : ''}><input
             data-r=${r}
             data-c=${c}
             tabindex=${tab(c)}
-            .value=${live(typed)}
+            .value=${fieldValue(cell)}
             data-v=${cell}
             aria-label=${`row ${r + 1}, ${col}`}
             aria-invalid=${reason ? 'true' : 'false'}
             title=${reason ?? ''}
             data-help=${reason ? `row ${r + 1}, ${col}: ${reason}` : ''}
-            @change=${(e: Event) => this.commitCell(r, c, (e.target as HTMLInputElement).value)}
+            @change=${(e: Event) => this.edit(r, c, (e.target as HTMLInputElement).value)}
           /></td>`;
       })}
       <td><button type="button" data-r=${r} data-c=${g.header.length} tabindex=${tab(g.header.length)} aria-label=${`delete row ${r + 1}`} @click=${() => this.deleteRow(r)}>✕</button></td>
@@ -477,7 +442,7 @@ export class SampleEditor extends LitElement {
         @dragleave=${() => (this.dragging = false)}
         @drop=${this.onDrop}
       >
-        <table role="grid" aria-label="sample" aria-rowcount=${n + 1} aria-colcount=${cols} @keydown=${this.onGridKey} @focusin=${this.onGridFocus} @focusout=${this.onGridFocusOut} @input=${this.onGridInput}>
+        <table role="grid" aria-label="sample" aria-rowcount=${n + 1} aria-colcount=${cols} @keydown=${this.onGridKey} @focusin=${this.onGridFocus}>
           <thead>
             <tr aria-rowindex="1"><th scope="col">row</th>${g.header.map((h) => html`<th scope="col">${h}</th>`)}<th scope="col"><span class="visually-hidden">delete</span></th></tr>
           </thead>

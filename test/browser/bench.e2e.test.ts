@@ -426,6 +426,48 @@ describe('the bench: survey and choices', () => {
     app.remove();
   });
 
+  it('keeps the text typed into a choice and into the survey while their panels re-render, and commits it when the field is left', async () => {
+    const app = await freshApp();
+    // A choice: the headline IMF changes (a run and a UV slope on their way), the user goes on to type into H₀.
+    const sel = deep(app, 'choice-panel select[aria-label="headline IMF"]')[0] as HTMLSelectElement;
+    let ran = nextAudit(app);
+    sel.value = 'top-heavy-flat';
+    sel.dispatchEvent(new Event('change'));
+    const h0 = deep(app, 'choice-panel input[type=number]').find((i) => i.closest('label')?.textContent?.startsWith('H₀')) as HTMLInputElement;
+    h0.focus();
+    h0.value = '71.5';
+    h0.dispatchEvent(new InputEvent('input', { bubbles: true, composed: true, inputType: 'insertText', data: '71.5' }));
+    await until(() => /of top-heavy-flat .*: -?\d/.test(deep(app, 'choice-panel .uv')[0]?.textContent ?? ''), 'the UV slope of the new headline IMF is shown');
+    await ran;
+    await settle(app);
+    expect(h0.value).to.equal('71.5');
+    // leaving the field commits it (a script's typing gets no change event from the browser: sent here)
+    ran = nextAudit(app);
+    h0.dispatchEvent(new Event('change'));
+    h0.blur();
+    await ran;
+    expect(saved().choices.cosmology.h0).to.equal(71.5);
+    // The survey: a cell edit starts a run (the page re-renders with its progress and its results, handing
+    // the survey editor its value again each time) while the user types the area.
+    ran = nextAudit(app);
+    const z = cell(app, 'row 1, z');
+    z.value = '7.45';
+    z.dispatchEvent(new Event('change'));
+    const area = deep(app, 'survey-editor input[aria-label="survey area [arcmin²]"]')[0] as HTMLInputElement;
+    area.focus();
+    area.value = '123';
+    area.dispatchEvent(new InputEvent('input', { bubbles: true, composed: true, inputType: 'insertText', data: '123' }));
+    await ran;
+    await settle(app);
+    expect(area.value).to.equal('123');
+    ran = nextAudit(app);
+    area.dispatchEvent(new Event('change'));
+    area.blur();
+    await ran;
+    expect(saved().choices.survey.areaArcmin2).to.equal(123);
+    app.remove();
+  });
+
   it('explanations show on keyboard focus, not only on hover', async () => {
     const app = await freshApp();
     const h0 = deep(app, 'choice-panel input[type=number]')[0] as HTMLInputElement;

@@ -4,9 +4,11 @@ import '../../src/ui/sample-editor.js';
 import type { SampleEditor } from '../../src/ui/sample-editor.js';
 
 /**
- * The text being typed into a cell of <sample-editor> (not yet committed) is the user's until Enter, leaving
- * the cell or Escape: a re-render in between (a run's results bringing new problems, another cell committed)
- * keeps it, and Enter then sends it. Only a sample from outside (undo, import) replaces it.
+ * The text being typed into a field (not yet committed) is the user's until it is committed (Enter, leaving
+ * the field) or undone (Escape): a re-render in between (a run's results bringing new problems, another
+ * cell committed, the page handing the same values on again) keeps it, and the commit then sends it. Only
+ * a value from outside that differs (undo, import) replaces it (fieldValue; <choice-panel> and
+ * <survey-editor> use it too, tested end to end in bench.e2e.test.ts).
  */
 
 function mount(csv: string): SampleEditor {
@@ -67,7 +69,7 @@ describe('<sample-editor>: the text being typed into a cell', () => {
     el.remove();
   });
 
-  it('gives way to a sample from outside (undo, import) and to Escape', async () => {
+  it('gives way to a different value from outside (undo, import) and to Escape', async () => {
     const el = mount('id,z,muv\nA-1,9,-20\nA-2,8,-21\n');
     await settled(el);
     const id1 = cell(el, 'row 1, id');
@@ -105,3 +107,4 @@ describe('<sample-editor>: the text being typed into a cell', () => {
     el.remove();
   });
 });
+
