@@ -3,10 +3,36 @@ import { customElement, property, state } from 'lit/decorators.js';
 import uPlot from 'uplot';
 import type { ChartModel, MarkerSet } from './chart/chart-config.js';
 import { FULL_POINTS, labelPoints } from './chart/legibility.js';
-import { addMarker } from './chart/marker-path.js';
+import { barPaths, markerPaths, type PixelPoints } from './chart/marker-batch.js';
 import { pixelsFor, withDpi } from './chart/png-dpi.js';
 import { COLUMN_MM, layoutSvg, legendEntries, type SvgOptions } from './chart/svg-export.js';
 import { lineSample, mark } from './verdict-marks.js';
+
+/** Longest slice of overlay drawing in one task, ms (then the page gets a turn). */
+const SLICE_MS = 40;
+
+/** The markers' extents on each axis (error bars included on y), computed once per model. */
+const extents = new WeakMap<ChartModel, { x: [number, number]; y: [number, number] }>();
+function markerExtents(m: ChartModel): { x: [number, number]; y: [number, number] } {
+  let e = extents.get(m);
+  if (!e) {
+    const scan = (arrs: ArrayLike<number>[]): [number, number] => {
+      let lo = Infinity;
+      let hi = -Infinity;
+      for (const a of arrs)
+        for (let i = 0; i < a.length; i++) {
+          const v = a[i];
+          if (!Number.isFinite(v)) continue;
+          if (v < lo) lo = v;
+          if (v > hi) hi = v;
+        }
+      return [lo, hi];
+    };
+    e = { x: scan(m.markers.map((s) => s.x)), y: scan(m.markers.flatMap((s) => [s.y, s.yLo ?? [], s.yHi ?? []])) };
+    extents.set(m, e);
+  }
+  return e;
+}
 
 /**
  * <audit-chart>: draws one ChartModel with uPlot (lines on a shared x axis; density layer, markers with error
@@ -30,6 +56,13 @@ export class AuditChart extends LitElement {
 
   private plot?: uPlot;
   private layoutKey = '';
+  private layerCanvas?: HTMLCanvasElement;
+  /** The draw waiting for its own task (see scheduleDraw), and what it will do. */
+  private drawing?: Promise<void>;
+  private drawKind: 'draw' | 'redraw' | undefined;
+  /** The overlay being drawn in slices (see drawOverlay), and a counter that tells a stale one to stop. */
+  private overlayDone?: Promise<void>;
+  private overlayJob = 0;
   private resizeObserver?: ResizeObserver;
 
   static styles = css`
@@ -85,27 +118,136 @@ export class AuditChart extends LitElement {
   }
 
   protected updated(changed: PropertyValues): void {
-    try {
-      if (changed.has('model') || !this.plot) this.draw();
-      else if (changed.has('highlight') || changed.has('labelTension')) this.plot.redraw(false, false);
-    } catch (e) {
-      this.dispatchEvent(new CustomEvent('chart-error', { detail: { id: this.model?.id, message: (e as Error).message }, bubbles: true, composed: true }));
-    }
+    if (changed.has('model') || !this.plot) this.scheduleDraw('draw');
+    else if (changed.has('highlight') || changed.has('labelTension')) this.scheduleDraw('redraw');
   }
 
-  /** Density layer, markers (ordinary ones, then galaxies in tension), highlight ring and labels. */
+  /**
+   * Draws in a task of its own, after the page's update: the figures of a large result then come one task
+   * each, not all in the task that renders the page. Several requests before it runs make one draw.
+   * `updateComplete` waits for it.
+   */
+  private scheduleDraw(kind: 'draw' | 'redraw'): void {
+    if (this.drawKind !== 'draw') this.drawKind = kind;
+    this.drawing ??= new Promise<void>((done) =>
+      setTimeout(() => {
+        const k = this.drawKind;
+        this.drawing = undefined;
+        this.drawKind = undefined;
+        try {
+          if (k === 'draw' || !this.plot) this.draw();
+          else this.plot.redraw(false, false);
+        } catch (e) {
+          this.dispatchEvent(new CustomEvent('chart-error', { detail: { id: this.model?.id, message: (e as Error).message }, bubbles: true, composed: true }));
+        }
+        done();
+      }, 0),
+    );
+  }
+
+  protected override async getUpdateComplete(): Promise<boolean> {
+    const result = await super.getUpdateComplete();
+    while (this.drawing || this.overlayDone) await (this.drawing ?? this.overlayDone);
+    return result;
+  }
+
+  /** Pixel positions of the set's finite markers that are (top) or are not in tension, with error-bar ends if drawn. */
+  private pixels(s: MarkerSet, top: boolean, bars: boolean, X: (v: number) => number, Y: (v: number) => number): PixelPoints {
+    const len = s.x.length;
+    const x = new Float64Array(len);
+    const y = new Float64Array(len);
+    const lo = new Float64Array(bars && s.yLo && s.yHi ? len : 0);
+    const hi = new Float64Array(lo.length);
+    let n = 0;
+    for (let i = 0; i < len; i++) {
+      if ((s.tension?.[i] === 1) !== top) continue;
+      const px = X(s.x[i]);
+      const py = Y(s.y[i]);
+      if (!Number.isFinite(px) || !Number.isFinite(py)) continue;
+      x[n] = px;
+      y[n] = py;
+      if (lo.length) {
+        lo[n] = Y(s.yLo![i]);
+        hi[n] = Y(s.yHi![i]);
+      }
+      n++;
+    }
+    return { n, x, y, lo: lo.length ? lo : new Float64Array(n).fill(NaN), hi: hi.length ? hi : new Float64Array(n).fill(NaN) };
+  }
+
+  /** A 2D context off screen the size of the plot's canvas (kept between draws), for translucent layers. */
+  private offscreen(w: number, h: number): CanvasRenderingContext2D {
+    let c = this.layerCanvas;
+    if (!c) c = this.layerCanvas = document.createElement('canvas');
+    if (c.width !== w || c.height !== h) {
+      c.width = w;
+      c.height = h;
+    }
+    return c.getContext('2d')!;
+  }
+
+  /**
+   * uPlot's draw hook: starts drawing the overlay (see overlaySteps) and goes on in slices of at most
+   * SLICE_MS, each in a task of its own, so that 10⁴ galaxies under five IMFs never hold the page up. A
+   * redraw before the last slice starts over. `updateComplete` waits for the last slice.
+   */
   private drawOverlay(u: uPlot): void {
-    const m = this.model;
-    if (!m) return;
-    const ctx = u.ctx;
+    if (!this.model) return;
+    const job = ++this.overlayJob;
+    const steps = this.overlaySteps(u, this.model);
+    let done!: () => void;
+    const finished = new Promise<void>((ok) => (done = ok));
+    const fail = (e: unknown): void => {
+      this.overlayDone = undefined;
+      done();
+      this.dispatchEvent(new CustomEvent('chart-error', { detail: { id: this.model?.id, message: (e as Error).message }, bubbles: true, composed: true }));
+    };
+    const slice = (): void => {
+      if (job !== this.overlayJob) return done();
+      const ctx = u.ctx;
+      const t0 = performance.now();
+      let last = false;
+      ctx.save();
+      try {
+        ctx.setLineDash([]);
+        ctx.beginPath();
+        ctx.rect(u.bbox.left, u.bbox.top, u.bbox.width, u.bbox.height);
+        ctx.clip();
+        do last = !!steps.next().done;
+        while (!last && performance.now() - t0 < SLICE_MS);
+      } catch (e) {
+        return fail(e);
+      } finally {
+        ctx.restore();
+      }
+      if (!last) {
+        setTimeout(slice, 0);
+        return;
+      }
+      if (this.overlayDone === finished) this.overlayDone = undefined;
+      done();
+    };
+    this.overlayDone = finished;
+    slice();
+  }
+
+  /**
+   * The overlay, step by step (each `yield` is a point where drawing may pause for the page): density
+   * layer, markers (ordinary ones, then galaxies in tension) batch by batch, highlight ring and labels,
+   * then `chart-drawn`. Every step sets the canvas state it uses. Positions are taken from the scales as
+   * they are when drawing starts.
+   */
+  private *overlaySteps(u: uPlot, m: ChartModel): Generator<void, void> {
     const dpr = devicePixelRatio;
-    const X = (v: number): number => u.valToPos(v, 'x', true);
-    const Y = (v: number): number => u.valToPos(v, 'y', true);
-    ctx.save();
-    ctx.setLineDash([]);
-    ctx.beginPath();
-    ctx.rect(u.bbox.left, u.bbox.top, u.bbox.width, u.bbox.height);
-    ctx.clip();
+    const line = (scale: uPlot.Scale, off: number, dim: number, flip: boolean): ((v: number) => number) => {
+      const lo = scale.min ?? 0;
+      const k = dim / ((scale.max ?? 1) - lo);
+      return flip ? (v) => off + dim - (v - lo) * k : (v) => off + (v - lo) * k;
+    };
+    // uPlot's linear scales in canvas pixels (what valToPos(v, scale, true) gives), without a call per point.
+    const X = line(u.scales.x, u.bbox.left, u.bbox.width, false);
+    const Y = line(u.scales.y, u.bbox.top, u.bbox.height, true);
+    const ctx = u.ctx;
     const d = m.density;
     if (d && d.max > 0) {
       const cw = (d.x1 - d.x0) / d.nx;
@@ -119,45 +261,59 @@ export class AuditChart extends LitElement {
           const y0 = Y(d.y0 + (j + 1) * ch);
           ctx.fillRect(x0, y0, X(d.x0 + (i + 1) * cw) - x0, Y(d.y0 + j * ch) - y0);
         }
+      yield;
     }
     let count = 0;
-    const drawSet = (s: MarkerSet, top: boolean): void => {
-      const st = top ? FULL_POINTS : (m.points ?? FULL_POINTS);
-      const r = st.radius * dpr;
-      const bars = new Path2D();
-      const marks = new Path2D();
-      for (let i = 0; i < s.x.length; i++) {
-        if ((s.tension?.[i] === 1) !== top) continue;
-        const x = X(s.x[i]);
-        const y = Y(s.y[i]);
-        if (!Number.isFinite(x) || !Number.isFinite(y)) continue;
-        if (st.errorWidth > 0 && s.yLo && s.yHi) {
-          bars.moveTo(x, Y(s.yLo[i]));
-          bars.lineTo(x, Y(s.yHi[i]));
-        }
-        addMarker(marks, s.shape, x, y, r);
-        count++;
+    /** Strokes or fills each batch on `c` (yielding between batches), styled by `style` every time. */
+    function* paint(c: CanvasRenderingContext2D, paths: Path2D[], style: (c: CanvasRenderingContext2D) => void, fill: boolean): Generator<void, void> {
+      for (const path of paths) {
+        style(c);
+        if (fill) c.fill(path);
+        else c.stroke(path);
+        yield;
       }
-      ctx.globalAlpha = st.alpha;
-      ctx.strokeStyle = s.color;
-      ctx.fillStyle = s.color;
-      if (st.errorWidth > 0) {
-        ctx.lineWidth = st.errorWidth * dpr;
-        ctx.stroke(bars);
-      }
-      ctx.fill(marks);
-      if (st.outline) {
-        ctx.strokeStyle = '#000';
-        ctx.lineWidth = 0.6 * dpr;
-        ctx.stroke(marks);
-      }
+    }
+    const self = this;
+    /**
+     * One layer of a set (its bars, or its markers with their outlines). Opaque: batch after batch is the same
+     * as one path. Translucent: drawn opaque off screen and laid on at the set's opacity, as one translucent
+     * path would be.
+     */
+    function* layer(alpha: number, draw: (c: CanvasRenderingContext2D) => Generator<void, void>, batches: number): Generator<void, void> {
+      if (alpha >= 1 || batches === 1) return yield* draw(ctx);
+      const off = self.offscreen(ctx.canvas.width, ctx.canvas.height);
+      off.clearRect(0, 0, off.canvas.width, off.canvas.height);
+      yield* draw(off);
+      ctx.globalAlpha = alpha;
+      ctx.drawImage(off.canvas, 0, 0);
       ctx.globalAlpha = 1;
-    };
-    for (const s of m.markers) drawSet(s, false);
-    for (const s of m.markers) drawSet(s, true);
+      yield;
+    }
+    for (const top of [false, true])
+      for (const s of m.markers) {
+        const st = top ? FULL_POINTS : (m.points ?? FULL_POINTS);
+        const p = this.pixels(s, top, st.errorWidth > 0, X, Y);
+        count += p.n;
+        if (!p.n) continue;
+        const r = st.radius * dpr;
+        const bars = st.errorWidth > 0 && s.yLo && s.yHi ? barPaths(p) : [];
+        const marks = markerPaths(s.shape, p, r);
+        const a = st.alpha;
+        yield;
+        if (bars.length)
+          yield* layer(a, (c) => paint(c, bars, (k) => ((k.globalAlpha = c === ctx ? a : 1), (k.strokeStyle = s.color), (k.lineWidth = st.errorWidth * dpr)), false), bars.length);
+        yield* layer(
+          a,
+          function* (c) {
+            const alpha = c === ctx ? a : 1;
+            yield* paint(c, marks, (k) => ((k.globalAlpha = alpha), (k.fillStyle = s.color)), true);
+            if (st.outline) yield* paint(c, marks, (k) => ((k.globalAlpha = alpha), (k.strokeStyle = '#000'), (k.lineWidth = 0.6 * dpr)), false);
+          },
+          marks.length,
+        );
+      }
     const { labels } = labelPoints(m, this.highlight, this.labelTension);
     const rr = FULL_POINTS.radius * dpr;
-    ctx.font = `${11 * dpr}px sans-serif`;
     ctx.lineJoin = 'round';
     for (const l of labels) {
       const x = X(l.x);
@@ -176,7 +332,6 @@ export class AuditChart extends LitElement {
       ctx.fillStyle = '#000';
       ctx.fillText(l.id, x + rr * 2.2, y - rr * 1.6);
     }
-    ctx.restore();
     this.dispatchEvent(new CustomEvent('chart-drawn', { detail: { id: m.id, markers: count, labels: labels.map((l) => l.id) }, bubbles: true, composed: true }));
   }
 
@@ -193,15 +348,6 @@ export class AuditChart extends LitElement {
     }
     this.plot?.destroy();
     this.layoutKey = key;
-    const markerRange = (axis: 'x' | 'y'): [number, number] => {
-      let lo = Infinity;
-      let hi = -Infinity;
-      for (const s of this.model!.markers) {
-        const arrs = axis === 'x' ? [s.x] : [s.y, s.yLo ?? [], s.yHi ?? []];
-        for (const a of arrs) for (let i = 0; i < a.length; i++) if (Number.isFinite(a[i])) (lo = Math.min(lo, a[i])), (hi = Math.max(hi, a[i]));
-      }
-      return [lo, hi];
-    };
     const cats = m.xCategories;
     const opts: uPlot.Options = {
       width,
@@ -210,7 +356,7 @@ export class AuditChart extends LitElement {
         x: {
           time: false,
           range: (_u, lo, hi) => {
-            const [a, b] = markerRange('x');
+            const [a, b] = markerExtents(this.model!).x;
             const l = Math.min(lo, a);
             const h = Math.max(hi, b);
             const pad = cats ? 0.5 : 0.02 * (h - l || 1);
@@ -219,7 +365,7 @@ export class AuditChart extends LitElement {
         },
         y: {
           range: (_u, lo, hi) => {
-            const [a, b] = markerRange('y');
+            const [a, b] = markerExtents(this.model!).y;
             const l = Math.min(Number.isFinite(lo) ? lo : a, a);
             const h = Math.max(Number.isFinite(hi) ? hi : b, b);
             const pad = 0.06 * (h - l || 1);

@@ -11,7 +11,9 @@ import { headlineOf, type PanelChoices, type UvSlopeView } from './choice-panel.
 import { DEFAULT_CHOICES } from './default-choices.js';
 import { download } from './downloads.js';
 import { canRedo, canUndo, record, redo, startHistory, undo, type EditHistory, type HistoryLimits } from './edit-history.js';
+import { keepSameProblems } from './row-problems.js';
 import type { SurveyChoices } from './survey-editor.js';
+import './audit-summary.js';
 import type { DisputedMap } from '../core/audit/disputed-map.js';
 import './choice-panel.js';
 import './results-table.js';
@@ -85,8 +87,8 @@ export class BaryonAuditApp extends LitElement {
   private get choices(): PanelChoices {
     return this.hist.present.choices;
   }
-  /** The rows' problems of the response on show (one array per response, so the editor is not re-rendered by progress). */
-  private problemCache: { result?: object; problems: RowProblem[] } = { problems: [] };
+  /** The rows' problems of the response on show (the same array while they say the same, so neither progress nor a run that finds the same problems re-renders the editor). */
+  private problemCache: { result?: object; problems: readonly RowProblem[] } = { problems: [] };
 
   static styles = css`
     :host { display: block; font-family: system-ui, sans-serif; color: #111; }
@@ -106,7 +108,6 @@ export class BaryonAuditApp extends LitElement {
     label.button:focus-within { outline: 2px solid #0072B2; }
     .visually-hidden { position: absolute; width: 1px; height: 1px; overflow: hidden; clip-path: inset(50%); white-space: nowrap; }
     section { position: relative; }
-    pre.summary { white-space: pre-wrap; overflow-wrap: anywhere; font-size: 0.85rem; background: #f7f7f7; padding: 0.6rem; border: 1px solid #ddd; }
     progress { width: min(12rem, 40vw); }
     section { min-width: 0; }
     .status, .bench { flex-wrap: wrap; }
@@ -416,7 +417,7 @@ export class BaryonAuditApp extends LitElement {
     const result = resp?.result;
     if (this.problemCache.result !== result) {
       const problems = result ? result.galaxies.flatMap((g) => g.errors) : [];
-      this.problemCache = { result, problems: problems.length || this.problemCache.problems.length ? problems : this.problemCache.problems };
+      this.problemCache = { result, problems: keepSameProblems(this.problemCache.problems, problems) };
     }
     const problems = this.problemCache.problems;
     let figs: ChartModel[] = [];
@@ -432,11 +433,15 @@ export class BaryonAuditApp extends LitElement {
     const invalid = Object.values(this.invalid).flat();
     const stale = !!result && invalid.length > 0;
     const pending = !!result && !stale && !this.upToDate();
+    // Behind: the results are for earlier inputs and no run is on its way (it was cancelled, or it failed).
+    const behind = pending && this.ctl.status !== 'running';
     const outClass = stale ? 'stale' : pending ? 'pending' : '';
     const staleText = stale
       ? `The results, figures and summary below are out of date: ${invalid.map((p) => p.message).join('; ')}. Fix the highlighted choice to update them.`
-      : pending
-        ? 'The results below are being updated for your latest edit.'
+      : behind
+        ? 'The results below are for earlier inputs: the run for your latest edit did not finish. Run again to update them.'
+        : pending
+          ? 'The results below are being updated for your latest edit.'
         : '';
     const h = this.hist;
     return html`
@@ -475,13 +480,17 @@ export class BaryonAuditApp extends LitElement {
                 ? html`<span>Audited ${result!.sample.accepted} galaxies (${result!.sample.rejected} rejected) in ${(resp.elapsedMs / 1000).toFixed(2)} s.</span>`
                 : nothing}
           </div>
-          ${this.ctl.message && this.ctl.status !== 'error' && !/restarted/.test(this.ctl.message) ? html`<p class="notice" role="status">${this.ctl.message}</p>` : nothing}
+          ${this.ctl.message && this.ctl.status !== 'error' && !/restarted/.test(this.ctl.message)
+            ? html`<p class="notice" role="status">${this.ctl.message}${behind
+                  ? html`; the results below are for earlier inputs. <button type="button" @click=${() => this.schedule(0)}>Run again with the current inputs</button>`
+                  : nothing}</p>`
+            : nothing}
           ${this.ctl.message && (this.ctl.status === 'error' || /restarted/.test(this.ctl.message))
             ? html`<p class="error" role="alert">${this.ctl.message} Your sample and choices are kept as you left them.
                 <button type="button" @click=${() => this.schedule(0)}>Run again with the current inputs</button></p>`
             : nothing}
           <p class="visually-hidden" aria-live="polite" id="stale-text">${staleText}</p>
-          <div class="out ${outClass}" data-state=${stale ? 'out-of-date' : pending ? 'updating' : 'current'}>
+          <div class="out ${outClass}" data-state=${stale ? 'out-of-date' : behind ? 'behind' : pending ? 'updating' : 'current'}>
             ${stale
               ? html`<p class="stale-badge" aria-hidden="true">out of date — fix the highlighted choice
                   <button type="button" @click=${() => this.focusFirstInvalid()}>go to it</button></p>`
@@ -513,7 +522,7 @@ export class BaryonAuditApp extends LitElement {
                 <label class="button">Import JSON record…<input class="visually-hidden" type="file" accept=".json,application/json" @change=${this.importRecord} aria-label="Import a JSON record" /></label>
               </div>
               <h2>Summary</h2>
-              <pre class="summary">${resp?.markdown ?? ''}</pre>
+              <audit-summary .markdown=${resp?.markdown ?? ''}></audit-summary>
             </div>
           </div>
         </section>

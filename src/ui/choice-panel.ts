@@ -12,6 +12,7 @@ import { parseSfh } from '../core/stars/sfh.js';
 import { AUDIT_NUMBER_SPECS, type ChoiceNumberSpec } from './audit-number-specs.js';
 import { described, FieldHelp, helpStyles } from './field-help.js';
 import { isRounded, shortNumber } from './number-format.js';
+import { fieldValue } from './field-value.js';
 
 /**
  * The choices with the headline IMF. `headlineImf` is the IMF whose verdict heads each row without its
@@ -192,7 +193,7 @@ export class ChoicePanel extends LitElement {
         step=${step}
         aria-describedby=${`d-${id}`}
         aria-invalid=${this.problems[id] ? 'true' : 'false'}
-        .value=${this.problems[id] ? noChange : live(shortNumber(value))}
+        .value=${this.problems[id] ? noChange : fieldValue(shortNumber(value))}
         data-v=${shortNumber(value)}
         @change=${(e: Event) => onChange((e.target as HTMLInputElement).value)}
       />${described(`d-${id}`, text)}${this.err(id)}</label>`;
@@ -363,7 +364,7 @@ export class ChoicePanel extends LitElement {
                 class="wide"
                 type="text"
                 aria-invalid=${this.problems.sfh ? 'true' : 'false'}
-                .value=${live(c.sfh)}
+                .value=${fieldValue(c.sfh)}
                 @change=${(e: Event) => this.setSfh((e.target as HTMLInputElement).value.trim(), 'sfh')}
               /></label>`
             : nothing}

@@ -1,10 +1,10 @@
 import { LitElement, css, html, nothing, type PropertyValues } from 'lit';
 import { customElement, property, state } from 'lit/decorators.js';
-import { live } from 'lit/directives/live.js';
 import { repeat } from 'lit/directives/repeat.js';
 import type { RowProblem } from '../core/audit/index.js';
 import { decodeText } from '../core/audit/text-decoding.js';
 import { FieldHelp, helpStyles } from './field-help.js';
+import { fieldValue } from './field-value.js';
 import { appendWithHeader, readPasteBlock } from './paste-block.js';
 import { auditRowNumbers, csvFromGrid, gridFromCsv, isBlankRow, type SampleGrid } from './sample-table.js';
 
@@ -26,8 +26,9 @@ function problemColumn(p: RowProblem, header: readonly string[]): number {
  * <sample-editor>: the sample as a table. Import by file picker or drag-and-drop, paste a block from a
  * spreadsheet (appended; a block headed by other columns asks whether to replace or append), add, edit
  * and delete rows inline. Cells named in `problems` are marked and carry the reason (shown on focus too);
- * rejected rows stay visible. The grid is one tab stop: arrow keys, Page Up/Down, Ctrl+Home/End and
- * Enter move between cells. Large samples draw only the rows in view.
+ * rejected rows stay visible. The text being typed into a cell stays until it is committed (Enter, leaving
+ * the cell) or undone (Escape), whatever re-renders the table meanwhile (fieldValue). The grid is one tab
+ * stop: arrow keys, Page Up/Down, Ctrl+Home/End and Enter move between cells. Large samples draw only the rows in view.
  * Fires `sample-change` (detail: { csv, what, fileName? }) on every user edit; `what` names the edit.
  */
 @customElement('sample-editor')
@@ -136,7 +137,10 @@ export class SampleEditor extends LitElement {
         this.importError = `${file.name} is empty`;
         return;
       }
-      this.emit(gridFromCsv(text), `import ${file.name}`, { fileName: file.name });
+      const grid = gridFromCsv(text);
+      // A turn for the page between reading the file and handing the sample on (each a few tens of ms at 10⁴ rows).
+      await new Promise((ok) => setTimeout(ok, 0));
+      this.emit(grid, `import ${file.name}`, { fileName: file.name });
       this.said = `Imported ${file.name}: ${this.grid.rows.length} rows (Undo brings the previous sample back).`;
     } catch (e) {
       this.importError = `could not read ${file.name}: ${(e as Error).message}`;
@@ -381,7 +385,7 @@ export class SampleEditor extends LitElement {
             data-r=${r}
             data-c=${c}
             tabindex=${tab(c)}
-            .value=${live(cell)}
+            .value=${fieldValue(cell)}
             data-v=${cell}
             aria-label=${`row ${r + 1}, ${col}`}
             aria-invalid=${reason ? 'true' : 'false'}

@@ -1,11 +1,11 @@
 import { LitElement, css, html, noChange, nothing, type PropertyValues } from 'lit';
 import { hasProblems, tellValidity, withProblem, type FieldProblems } from './field-problems.js';
 import { customElement, property, state } from 'lit/decorators.js';
-import { live } from 'lit/directives/live.js';
 import { validateSurvey, type Survey } from '../core/audit/survey.js';
 import { isStrictNumber } from '../core/numeric/strict-number.js';
 import { described, FieldHelp, helpStyles } from './field-help.js';
 import { shortNumber } from './number-format.js';
+import { fieldValue } from './field-value.js';
 
 export interface SurveyChoices {
   readonly survey: Survey;
@@ -183,7 +183,7 @@ export class SurveyEditor extends LitElement {
                 aria-label=${`survey ${f.label}`}
                 aria-describedby=${`d-${f.key}`}
                 aria-invalid=${inv(`survey.${f.key}`)}
-                .value=${this.problems[`survey.${f.key}`] ? noChange : live(this.shown(v.survey, f.key))}
+                .value=${this.problems[`survey.${f.key}`] ? noChange : fieldValue(this.shown(v.survey, f.key))}
                 data-v=${this.shown(v.survey, f.key)}
                 @change=${(e: Event) => this.editDefault(f.key, (e.target as HTMLInputElement).value)}
               />${described(`d-${f.key}`, f.doc)}</label>`,
@@ -206,7 +206,7 @@ export class SurveyEditor extends LitElement {
                           aria-label=${`survey ${i + 1} ${f.label}`}
                           aria-invalid=${inv(`surveys.${i}.${f.key}`)}
                           data-help=${`${f.label}: ${f.doc}`}
-                          .value=${this.problems[`surveys.${i}.${f.key}`] ? noChange : live(this.shown(s, f.key))}
+                          .value=${this.problems[`surveys.${i}.${f.key}`] ? noChange : fieldValue(this.shown(s, f.key))}
                           data-v=${this.shown(s, f.key)}
                           @change=${(e: Event) => this.editNamed(i, f.key, (e.target as HTMLInputElement).value)}
                         /></td>`,
@@ -225,8 +225,8 @@ export class SurveyEditor extends LitElement {
         <p class="note">Bins for the sample's number and mass densities; none = the survey's range${v.zBins.length ? '' : ` (${v.survey.zMin} < z < ${v.survey.zMax})`}.</p>
         ${v.zBins.map(
           (b, i) => html`<div>
-            <label>bin ${i + 1} z from<input aria-label=${`bin ${i + 1} z from`} aria-invalid=${inv(`zBins.${i}`)} data-help="lower edge of the bin (0 ≤ z_lo < z_hi ≤ 30)" .value=${this.problems[`zBins.${i}`] ? noChange : live(shortNumber(b[0]))} data-v=${shortNumber(b[0])} @change=${(e: Event) => this.editBin(i, 0, (e.target as HTMLInputElement).value)} /></label>
-            <label>to<input aria-label=${`bin ${i + 1} z to`} aria-invalid=${inv(`zBins.${i}`)} data-help="upper edge of the bin (0 ≤ z_lo < z_hi ≤ 30)" .value=${this.problems[`zBins.${i}`] ? noChange : live(shortNumber(b[1]))} data-v=${shortNumber(b[1])} @change=${(e: Event) => this.editBin(i, 1, (e.target as HTMLInputElement).value)} /></label>
+            <label>bin ${i + 1} z from<input aria-label=${`bin ${i + 1} z from`} aria-invalid=${inv(`zBins.${i}`)} data-help="lower edge of the bin (0 ≤ z_lo < z_hi ≤ 30)" .value=${this.problems[`zBins.${i}`] ? noChange : fieldValue(shortNumber(b[0]))} data-v=${shortNumber(b[0])} @change=${(e: Event) => this.editBin(i, 0, (e.target as HTMLInputElement).value)} /></label>
+            <label>to<input aria-label=${`bin ${i + 1} z to`} aria-invalid=${inv(`zBins.${i}`)} data-help="upper edge of the bin (0 ≤ z_lo < z_hi ≤ 30)" .value=${this.problems[`zBins.${i}`] ? noChange : fieldValue(shortNumber(b[1]))} data-v=${shortNumber(b[1])} @change=${(e: Event) => this.editBin(i, 1, (e.target as HTMLInputElement).value)} /></label>
             <button type="button" aria-label=${`delete bin ${i + 1}`} @click=${() => this.deleteBin(i)}>✕</button>
             ${this.err(`zBins.${i}`)}
           </div>`,

@@ -85,6 +85,8 @@ export async function largeSampleRows(ctx, base, dir, rounds = Number(process.en
   for (let i = 0; i < rounds; i++) {
     cli.push(cliWallMs(f5));
     pages.push(await pageRun(ctx, base, f5, 5000));
+    const p = pages.at(-1);
+    console.error(`  round ${i + 1}: CLI ${(cli[i] / 1000).toFixed(2)} s, page ${(p.wallMs / 1000).toFixed(2)} s (ratio ${(p.wallMs / cli[i]).toFixed(2)}), longest task ${p.longest.toFixed(0)} ms`);
   }
   const ratios = pages.map((p, i) => p.wallMs / cli[i]);
   const toResult = pages.map((p, i) => p.resultMs / cli[i]);
@@ -98,10 +100,17 @@ export async function largeSampleRows(ctx, base, dir, rounds = Number(process.en
   out.push(['page, 5000 rows: long tasks (> 50 ms) from import to last figure', `${best.longTasks}`, '—']);
   out.push(['page, 5000 rows: longest task, import and audit', `${best.longestRun.toFixed(0)} ms`, '≤ 200 ms']);
   out.push(['page, 5000 rows: longest task, drawing the result', `${best.longestDraw.toFixed(0)} ms`, '≤ 200 ms']);
+  for (const r of out) console.error(`  ${r[0]}: ${r[1]}`); // as they come: a later failure keeps these
   if (process.env.BENCH_LARGE_10K !== '0') {
     const f10 = join(dir, 'sample-10000.csv');
     writeFileSync(f10, largeSampleCsv(10000));
-    const p = await pageRun(ctx, base, f10, 10000);
+    let p;
+    try {
+      p = await pageRun(ctx, base, f10, 10000);
+    } catch (e) {
+      out.push(['page, 10⁴ rows', `failed: ${e.message.split('\n')[0]}`, '—']);
+      return out;
+    }
     out.push(['page, 10⁴ rows: import → "Audited 10000"', `${(p.wallMs / 1000).toFixed(2)} s`, '—']);
     out.push(['page, 10⁴ rows: longest task, import and audit', `${p.longestRun.toFixed(0)} ms`, '≤ 200 ms']);
     out.push(['page, 10⁴ rows: longest task, drawing the result', `${p.longestDraw.toFixed(0)} ms`, '≤ 200 ms']);

@@ -2,7 +2,8 @@
 // npm run bench:web (also run by npm run bench): the web app in Debian's headless Chromium.
 // Measures load → first complete figure on the demo, edit → updated figure over 50 edits (p50/p95),
 // a large imported sample against the command line (test/bench/large-sample-bench.mjs; BENCH_LARGE=0
-// skips it, BENCH_LARGE_10K=0 skips its 10⁴-row part) and the gzipped bundle sizes.
+// skips it, BENCH_LARGE_10K=0 skips its 10⁴-row part), Cancel during a 10⁴-row import and run
+// (test/bench/page-cancel.mjs; BENCH_CANCEL=0 skips it) and the gzipped bundle sizes.
 // A benchmark, not a test: it prints, it never fails on a target.
 import { mkdtempSync, readdirSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir, cpus } from 'node:os';
@@ -11,6 +12,7 @@ import { gzipSync } from 'node:zlib';
 import { chromium } from 'playwright-core';
 import { buildIfNeeded, serve } from '../../src/cli/serve.mjs';
 import { largeSampleRows } from './large-sample-bench.mjs';
+import { cancelRows } from './page-cancel.mjs';
 
 const ARGS = ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'];
 const LARGE_ONLY = process.env.BENCH_LARGE_ONLY === '1';
@@ -34,6 +36,7 @@ await ctx.addInitScript(() => {
 const rows = [];
 try {
   if (process.env.BENCH_LARGE !== '0') rows.push(...(await largeSampleRows(ctx, base, profile)));
+  if (process.env.BENCH_CANCEL !== '0') rows.push(...(await cancelRows(ctx, base, profile)));
   const loads = [];
   const firsts = [];
   for (let i = 0; i < 5 && !LARGE_ONLY; i++) {

@@ -247,6 +247,33 @@ describe('the bench: editing the sample', () => {
     app.remove();
   });
 
+  it('keeps the text being typed into a cell while a run\'s results arrive, and Enter commits it', async () => {
+    const app = await freshApp();
+    // Row 1's z is edited and the user moves on to row 2's id: z's change event starts a run whose results
+    // bring a new problem (z_hi = 7.55 is below z = 9.99). The first letters are typed in the same task,
+    // so they are in the cell, uncommitted, before those results can arrive.
+    const ran = nextAudit(app);
+    const z = cell(app, 'row 1, z');
+    z.value = '9.99';
+    z.dispatchEvent(new Event('change'));
+    const id2 = cell(app, 'row 2, id');
+    id2.focus();
+    id2.value = 'NEW';
+    id2.dispatchEvent(new InputEvent('input', { bubbles: true, composed: true, inputType: 'insertText', data: 'NEW' }));
+    await ran;
+    await settle(app);
+    expect(cell(app, 'row 1, z_hi').getAttribute('aria-invalid'), "the run's problems reached the table").to.equal('true');
+    expect(cell(app, 'row 2, id').value).to.equal('NEW');
+    expect(deep(app, 'sample-editor input:focus')[0]?.getAttribute('aria-label')).to.equal('row 2, id');
+    id2.setSelectionRange(3, 3);
+    await sendKeys({ type: '-ID' });
+    await sendKeys({ press: 'Enter' });
+    await caughtUp(app, 'the results include the renamed galaxy');
+    expect(ids(app)[1]).to.equal('NEW-ID');
+    expect(verdictIds(app)).to.include('NEW-ID');
+    app.remove();
+  });
+
   it('brings the demo back with "Demo sample", and Undo returns to your own sample and survey', async () => {
     const app = await freshApp();
     const file = deep(app, 'sample-editor input[type=file]')[0] as HTMLInputElement;
@@ -396,6 +423,48 @@ describe('the bench: survey and choices', () => {
     expect(c.imfs).to.include('custom:0.1:1.3:0.5:2.3:100');
     expect(String(c.cosmology.omegaB).length).to.be.greaterThan(ob.value.length); // the exact value is kept
     expect(Number(ob.value)).to.be.closeTo(c.cosmology.omegaB, 1e-6);
+    app.remove();
+  });
+
+  it('keeps the text typed into a choice and into the survey while their panels re-render, and commits it when the field is left', async () => {
+    const app = await freshApp();
+    // A choice: the headline IMF changes (a run and a UV slope on their way), the user goes on to type into H₀.
+    const sel = deep(app, 'choice-panel select[aria-label="headline IMF"]')[0] as HTMLSelectElement;
+    let ran = nextAudit(app);
+    sel.value = 'top-heavy-flat';
+    sel.dispatchEvent(new Event('change'));
+    const h0 = deep(app, 'choice-panel input[type=number]').find((i) => i.closest('label')?.textContent?.startsWith('H₀')) as HTMLInputElement;
+    h0.focus();
+    h0.value = '71.5';
+    h0.dispatchEvent(new InputEvent('input', { bubbles: true, composed: true, inputType: 'insertText', data: '71.5' }));
+    await until(() => /of top-heavy-flat .*: -?\d/.test(deep(app, 'choice-panel .uv')[0]?.textContent ?? ''), 'the UV slope of the new headline IMF is shown');
+    await ran;
+    await settle(app);
+    expect(h0.value).to.equal('71.5');
+    // leaving the field commits it (a script's typing gets no change event from the browser: sent here)
+    ran = nextAudit(app);
+    h0.dispatchEvent(new Event('change'));
+    h0.blur();
+    await ran;
+    expect(saved().choices.cosmology.h0).to.equal(71.5);
+    // The survey: a cell edit starts a run (the page re-renders with its progress and its results, handing
+    // the survey editor its value again each time) while the user types the area.
+    ran = nextAudit(app);
+    const z = cell(app, 'row 1, z');
+    z.value = '7.45';
+    z.dispatchEvent(new Event('change'));
+    const area = deep(app, 'survey-editor input[aria-label="survey area [arcmin²]"]')[0] as HTMLInputElement;
+    area.focus();
+    area.value = '123';
+    area.dispatchEvent(new InputEvent('input', { bubbles: true, composed: true, inputType: 'insertText', data: '123' }));
+    await ran;
+    await settle(app);
+    expect(area.value).to.equal('123');
+    ran = nextAudit(app);
+    area.dispatchEvent(new Event('change'));
+    area.blur();
+    await ran;
+    expect(saved().choices.survey.areaArcmin2).to.equal(123);
     app.remove();
   });
 

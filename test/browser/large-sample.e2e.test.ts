@@ -2,7 +2,7 @@ import { expect } from 'chai';
 
 /**
  * Large samples on the built bundle: progress with rate and time left, Cancel in the middle of a large
- * run, a worker that dies silently (no error event: only the liveness check can tell), and a worker
+ * run and during the import of 10⁴ rows (while the workers read the sample), a worker that dies silently (no error event: only the liveness check can tell), and a worker
  * script that cannot load (restarts back off and stop). Every wait fails at once with the page's own
  * message if the page reports a failure it was not expected to.
  */
@@ -99,12 +99,44 @@ describe('large samples in the page', () => {
     await app.updateComplete;
     expect(statusText(app)).to.not.contain('Auditing');
     expect(app.shadowRoot!.textContent).to.contain('run cancelled');
-    // the previous (demo) result stays on the page
+    // the previous (demo) result stays on the page, said to be for earlier inputs, with a way to run again
     expect(statusText(app)).to.contain('Audited 8 galaxies');
+    expect(app.shadowRoot!.querySelector('.out')?.getAttribute('data-state')).to.equal('behind');
+    expect(shadowAll(app.shadowRoot!, 'button').some((b) => b.textContent === 'Run again with the current inputs')).to.equal(true);
     const next = waitFor(app, 'audit-complete');
     importCsv(app, sampleCsv(30), 'small.csv');
     await next;
     expect(statusText(app)).to.contain('Audited 30 galaxies');
+    app.remove();
+  });
+
+  it('Cancel during the import of 10⁴ rows (the workers still reading the sample) answers at once, keeps the sample, and the workers take the next run', async () => {
+    const app = await freshApp();
+    importCsv(app, sampleCsv(10000), 'ten-thousand.csv');
+    // the first moment the page offers Cancel: the sample is handed on and no row is audited yet
+    await until(() => /Cancel/.test(statusText(app)), 'Cancel offered for the imported sample');
+    const shown = statusText(app);
+    expect(shown).to.match(/Auditing… 0\/(\?|10000) rows/);
+    const cancel = shadowAll(app.shadowRoot!, 'button').find((b) => b.textContent === 'Cancel') as HTMLButtonElement;
+    cancel.click();
+    await app.updateComplete;
+    expect(statusText(app)).to.not.contain('Auditing');
+    expect(statusText(app)).to.contain('Audited 8 galaxies');
+    expect(app.shadowRoot!.textContent).to.contain('run cancelled');
+    const out = app.shadowRoot!.querySelector('.out')!;
+    expect(out.getAttribute('data-state')).to.equal('behind');
+    expect(app.shadowRoot!.querySelector('#stale-text')?.textContent).to.contain('earlier inputs');
+    // the imported sample stays on the bench (Undo would bring the demo back)
+    const editor = shadowAll(app.shadowRoot!, 'sample-editor')[0] as HTMLElement & { updateComplete: Promise<boolean> };
+    await editor.updateComplete;
+    expect(editor.shadowRoot!.querySelector('.bar')?.textContent).to.contain('10000 rows');
+    // the workers let go of the cancelled run: the next one (the demo again, by Undo) completes
+    const next = waitFor(app, 'audit-complete');
+    (app as unknown as { undo(): void }).undo();
+    await next;
+    await app.updateComplete;
+    expect(statusText(app)).to.contain('Audited 8 galaxies');
+    expect(out.getAttribute('data-state')).to.equal('current');
     app.remove();
   });
 
