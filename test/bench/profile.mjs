@@ -3,6 +3,6 @@
 import { pathToFileURL } from 'node:url';
 import { bundleForNode } from '../../src/cli/bundle.mjs';
 
-const out = 'node_modules/.cache/baryon-audit/profile-audit.mjs';
+const out = `node_modules/.cache/baryon-audit/profile-audit-${process.pid}.mjs`;
 await bundleForNode('test/bench/profile-audit.ts', out);
 await import(pathToFileURL(out).href);

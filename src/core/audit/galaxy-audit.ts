@@ -8,13 +8,13 @@ import { makeAccretionHistory } from './accretion.js';
 import { attribute, type AttributionDetail } from './attribution.js';
 import type { AuditChoices } from './choices.js';
 import type { CeilingTable } from './ceiling.js';
-import { drawGalaxy, tabulatedBackground, type GalaxyDraws } from './galaxy-draws.js';
+import { drawGalaxy, fastBackground, tabulatedBackground, type GalaxyDraws } from './galaxy-draws.js';
 import { imfStatistics, type ImfResult, type ImfStatistics, type SharedDraws } from './imf-statistics.js';
 import { rescaleBase, rescalePosition } from './imf-rescale.js';
 import { idSeed, makeRandom } from './random.js';
 import type { GalaxyInput } from './sample.js';
 import { reconcileGalaxy, type Reconciliation } from './reconcile.js';
-import { logAccretedBaryons } from './time-budget.js';
+import { logAccretedBaryonsOfDraws } from './time-budget.js';
 import { verdictFor, type Attribution, type Verdict } from './verdict.js';
 
 export type { ImfResult } from './imf-statistics.js';
@@ -184,15 +184,10 @@ function redshiftChecks(ctx: AuditContext, g: GalaxyInput, seed: number, headTab
 /** Ceilings (log10 f_b M_halo,q, without and with cosmic variance) at each valid draw's redshift. */
 function drawCeilings(ceil: CeilingTable, fb: number, sigmaDm: number, z: Float64Array, valid: Int32Array, scratch: Scratch): { logCeil: Float64Array; logCeilCv: Float64Array } {
   const nv = valid.length;
-  const logCeil = scratch.f64('ceiling.log', nv);
-  const logCeilCv = scratch.f64('ceiling.logCv', nv);
   const lfb = Math.log10(fb);
-  for (let i = 0; i < nv; i++) {
-    const zk = z[valid[i]];
-    logCeil[i] = lfb + ceil.log10HaloMassAtQuantile(zk);
-    // σ_dm is evaluated once, at the galaxy's nominal z (it changes slowly with z across the slice).
-    logCeilCv[i] = lfb + ceil.log10HaloMassAtQuantileCv(zk, sigmaDm);
-  }
+  const logCeil = ceil.log10HaloMassesAt(z, valid, nv, undefined, lfb, scratch.f64('ceiling.log', nv));
+  // σ_dm is evaluated once, at the galaxy's nominal z (it changes slowly with z across the slice).
+  const logCeilCv = ceil.log10HaloMassesAt(z, valid, nv, sigmaDm, lfb, scratch.f64('ceiling.logCv', nv));
   return { logCeil, logCeilCv };
 }
 
@@ -202,17 +197,12 @@ function drawAccretion(ctx: AuditContext, g: GalaxyInput, d: GalaxyDraws, valid:
   if (!(g.z < choices.formationZ)) return undefined;
   const lfb = Math.log10(halo.baryonFraction);
   const nv = valid.length;
-  const zs = scratch.f64('accretion.z', nv);
-  const ages = scratch.f64('accretion.age', nv);
   const halos = scratch.f64('accretion.halo', nv);
-  for (let i = 0; i < nv; i++) {
-    zs[i] = d.z[valid[i]];
-    ages[i] = d.log10AgeMyr[valid[i]];
-    halos[i] = logCeil[i] - lfb;
-  }
+  for (let i = 0; i < nv; i++) halos[i] = logCeil[i] - lfb;
   // ages and distances per draw from the draws' own tables (galaxy-draws.ts), not the direct integrals
   const bg = tabulatedBackground(halo.background);
-  return logAccretedBaryons(bg, makeAccretionHistory(bg), halo.baryonFraction, choices.formationZ, zs, ages, halos);
+  const lnAgeAt = fastBackground(halo.background).lnAgeAt;
+  return logAccretedBaryonsOfDraws(bg, makeAccretionHistory(bg), halo.baryonFraction, choices.formationZ, nv, valid, d.lnOnePlusZ, lnAgeAt, d.log10AgeMyr, halos, scratch.f64('accretion.out', nv));
 }
 
 function timeBudgetOf(ctx: AuditContext, g: GalaxyInput, head: ImfStatistics, acc: Float64Array | undefined, notes: string[]): TimeBudget | null {

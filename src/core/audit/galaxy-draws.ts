@@ -88,6 +88,8 @@ export function tabulatedBackground(bg: Background): Background {
 export interface GalaxyDraws {
   readonly n: number;
   readonly z: Float64Array;
+  /** ln(1 + z) of each draw (the variable of the background tables). */
+  readonly lnOnePlusZ: Float64Array;
   /** log10 of the population age (Myr) and of the rest wavelength (μm; NaN where excluded). */
   readonly log10AgeMyr: Float64Array;
   readonly log10LambdaRestUm: Float64Array;
@@ -108,6 +110,7 @@ export function drawGalaxy(g: GalaxyInput, n: number, seed: number, bgFull: Back
   const bg = fastBackground(bgFull);
   const vec = (name: string): Float64Array => (scratch ? scratch.f64(name, n) : new Float64Array(n));
   const z = vec('draws.z');
+  const lnZ1 = vec('draws.x');
   const lL = vec('draws.lnu');
   const lM = vec('draws.mass');
   const lAge = vec('draws.age');
@@ -148,6 +151,7 @@ export function drawGalaxy(g: GalaxyInput, n: number, seed: number, bgFull: Back
     }
     z[k] = zk;
     const x = Math.log1p(zk);
+    lnZ1[k] = x;
     const log10TMax = bg.lnAgeAt(x) / Math.LN10 + 3; // Myr
     const la = l0 + uAge * (log10TMax - l0);
     lAge[k] = la;
@@ -173,5 +177,5 @@ export function drawGalaxy(g: GalaxyInput, n: number, seed: number, bgFull: Back
       lLam[k] = lObs - x / Math.LN10;
     }
   }
-  return { n, z, log10AgeMyr: lAge, log10LambdaRestUm: lLam, log10Lnu: lL, log10MassRef: lM, excluded };
+  return { n, z, lnOnePlusZ: lnZ1, log10AgeMyr: lAge, log10LambdaRestUm: lLam, log10Lnu: lL, log10MassRef: lM, excluded };
 }
