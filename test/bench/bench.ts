@@ -48,8 +48,11 @@ function report(name: string, ms: number, target: string, extra = ''): void {
   console.log(`${name.padEnd(58)} ${rows[rows.length - 1][1].padStart(12)}   target ${target}${extra ? '   ' + extra : ''}`);
 }
 
+/** BENCH_NUMPY_ONLY=1: only the side-by-side runs against the numpy script (section 5b). */
+const numpyOnly = process.env.BENCH_NUMPY_ONLY === '1';
 console.log(`Baryon Audit benchmarks — ${new Date().toISOString().slice(0, 10)}, ${os.cpus().length} cores (${os.cpus()[0]?.model ?? '?'}), Node ${process.version}\n`);
 
+if (!numpyOnly) {
 // 1. σ(M) table
 const power = makeLinearPower(PLANCK18, { kind: 'eh98' });
 report('σ(M) table, 341 masses 1e2–1e19 Msun (EH98)', time(() => makeSigmaTable(power), 7), '≤ 50 ms');
@@ -170,6 +173,8 @@ console.log(`   cost ∝ N^${slope(aSizes, aTimes).toFixed(2)} (set-up included)
   report('audit CLI: 1000 galaxies × 20000 draws × 4 IMFs (wall time, --jobs = cores)', wall, '≤ 10 s');
 }
 
+}
+
 // 5b. side by side with a vectorised numpy script doing the same per-draw work (numpy_audit.py), one
 // thread each, alternated and repeated: the machine is shared, so only the ratio of neighbours counts.
 {
@@ -218,6 +223,7 @@ console.log(`   cost ∝ N^${slope(aSizes, aTimes).toFixed(2)} (set-up included)
   }
 }
 
+if (!numpyOnly) {
 // 6. memory for a 100 000-row CSV
 const big = sample(100000);
 const before = process.memoryUsage().heapUsed;
@@ -243,6 +249,8 @@ if (existsSync('/usr/bin/time')) {
   rmSync(dir, { recursive: true, force: true });
   console.log(`streamed audit, peak RSS: 10 000 rows ${peak[0].toFixed(0)} MB, 100 000 rows ${peak[1].toFixed(0)} MB (ratio ${(peak[1] / peak[0]).toFixed(1)} for 10× the rows)`);
   rows.push(['audit CLI, 100 000 rows with 300-char notes, peak RSS (--jobs 1)', `${peak[1].toFixed(0)} MB`, '—', `10 000 rows: ${peak[0].toFixed(0)} MB`]);
+}
+
 }
 
 console.log('\nMarkdown table:\n');

@@ -19,6 +19,14 @@ export interface EddingtonPosterior {
 }
 
 const POINTS = 1601;
+
+/**
+ * A ln prior that can also fill a whole grid at once: out[i] = lnPrior(x0 + i h), the same values,
+ * without a call per point (imf-statistics.ts gives one).
+ */
+export type LnPrior = ((x: number) => number) & { readonly onGrid?: (x0: number, h: number, n: number, out: Float64Array) => void };
+
+const gridBuf = new Float64Array(POINTS);
 const HALF_WIDTH_SIGMA = 10;
 
 /**
@@ -26,7 +34,7 @@ const HALF_WIDTH_SIGMA = 10;
  * @param xObs measured log10 mass.
  * @param sigmaDex Gaussian 1σ error in dex (≥ 0; 0 gives no shift).
  */
-export function eddingtonPosterior(lnPrior: (x: number) => number, xObs: number, sigmaDex: number): EddingtonPosterior {
+export function eddingtonPosterior(lnPrior: LnPrior, xObs: number, sigmaDex: number): EddingtonPosterior {
   if (!(sigmaDex > 0)) return { shiftMedianDex: 0, shiftMeanDex: 0 };
   // First pass around x_obs finds the posterior's peak; the second integrates ±10σ around that peak,
   // so a large shift (a steep prior) is not truncated by the grid's edge.
@@ -35,16 +43,18 @@ export function eddingtonPosterior(lnPrior: (x: number) => number, xObs: number,
   return { shiftMedianDex: xObs - median, shiftMeanDex: xObs - mean };
 }
 
-function posteriorOnGrid(lnPrior: (x: number) => number, xObs: number, sigmaDex: number, centre: number): { peak: number; median: number; mean: number } {
+function posteriorOnGrid(lnPrior: LnPrior, xObs: number, sigmaDex: number, centre: number): { peak: number; median: number; mean: number } {
   const h = (2 * HALF_WIDTH_SIGMA * sigmaDex) / (POINTS - 1);
   const x0 = centre - HALF_WIDTH_SIGMA * sigmaDex;
   const lw = new Float64Array(POINTS);
+  const prior = lnPrior.onGrid ? gridBuf : undefined;
+  if (prior) lnPrior.onGrid!(x0, h, POINTS, prior);
   let top = Number.NEGATIVE_INFINITY;
   let iTop = 0;
   for (let i = 0; i < POINTS; i++) {
     const x = x0 + i * h;
     const d = (x - xObs) / sigmaDex;
-    lw[i] = lnPrior(x) - 0.5 * d * d;
+    lw[i] = (prior ? prior[i] : lnPrior(x)) - 0.5 * d * d;
     if (lw[i] > top) {
       top = lw[i];
       iTop = i;
