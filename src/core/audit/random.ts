@@ -61,13 +61,14 @@ class Xoroshiro128Plus implements RandomStream {
     this.s11 = (a0 << 5) ^ (a1 >>> 27);
     return out;
   }
-  uniform(): number {
+  /** Bound to the stream (callers may pass rnd.uniform and rnd.normal around as functions). */
+  readonly uniform = (): number => {
     const a = this.next() & 0x3ffffff;
     const b = this.next() & 0x7ffffff;
     return a * 1.4901161193847656e-8 + b * 1.1102230246251565e-16;
-  }
+  };
   /** Box–Muller, the cosine deviate first and the sine deviate kept for the next call. */
-  normal(): number {
+  readonly normal = (): number => {
     if (this.hasSpare) {
       this.hasSpare = false;
       return this.spare;
@@ -79,7 +80,7 @@ class Xoroshiro128Plus implements RandomStream {
     this.spare = r * Math.sin(2 * Math.PI * v);
     this.hasSpare = true;
     return r * Math.cos(2 * Math.PI * v);
-  }
+  };
 }
 
 export function makeRandom(seed: number): RandomStream {
