@@ -26,7 +26,10 @@ const POINTS = 1601;
  */
 export type LnPrior = ((x: number) => number) & { readonly onGrid?: (x0: number, h: number, n: number, out: Float64Array) => void };
 
+/** Work vectors of one posterior (reused: the results are scalars). */
 const gridBuf = new Float64Array(POINTS);
+const lwBuf = new Float64Array(POINTS);
+const wBuf = new Float64Array(POINTS);
 const HALF_WIDTH_SIGMA = 10;
 
 /**
@@ -38,15 +41,36 @@ export function eddingtonPosterior(lnPrior: LnPrior, xObs: number, sigmaDex: num
   if (!(sigmaDex > 0)) return { shiftMedianDex: 0, shiftMeanDex: 0 };
   // First pass around x_obs finds the posterior's peak; the second integrates ±10σ around that peak,
   // so a large shift (a steep prior) is not truncated by the grid's edge.
-  const peak = posteriorOnGrid(lnPrior, xObs, sigmaDex, xObs).peak;
+  const peak = posteriorPeak(lnPrior, xObs, sigmaDex, xObs);
   const { median, mean } = posteriorOnGrid(lnPrior, xObs, sigmaDex, peak);
   return { shiftMedianDex: xObs - median, shiftMeanDex: xObs - mean };
+}
+
+/** The grid point of largest ln posterior on posteriorOnGrid's grid around `centre` (its `peak`, without the sums). */
+function posteriorPeak(lnPrior: LnPrior, xObs: number, sigmaDex: number, centre: number): number {
+  const h = (2 * HALF_WIDTH_SIGMA * sigmaDex) / (POINTS - 1);
+  const x0 = centre - HALF_WIDTH_SIGMA * sigmaDex;
+  const prior = lnPrior.onGrid ? gridBuf : undefined;
+  if (prior) lnPrior.onGrid!(x0, h, POINTS, prior);
+  let top = Number.NEGATIVE_INFINITY;
+  let iTop = 0;
+  for (let i = 0; i < POINTS; i++) {
+    const x = x0 + i * h;
+    const d = (x - xObs) / sigmaDex;
+    const lw = (prior ? prior[i] : lnPrior(x)) - 0.5 * d * d;
+    if (lw > top) {
+      top = lw;
+      iTop = i;
+    }
+  }
+  if (!Number.isFinite(top)) throw new RangeError('Eddington correction: the mass-function prior vanishes over the whole ±10σ range of the measured mass');
+  return x0 + iTop * h;
 }
 
 function posteriorOnGrid(lnPrior: LnPrior, xObs: number, sigmaDex: number, centre: number): { peak: number; median: number; mean: number } {
   const h = (2 * HALF_WIDTH_SIGMA * sigmaDex) / (POINTS - 1);
   const x0 = centre - HALF_WIDTH_SIGMA * sigmaDex;
-  const lw = new Float64Array(POINTS);
+  const lw = lwBuf;
   const prior = lnPrior.onGrid ? gridBuf : undefined;
   if (prior) lnPrior.onGrid!(x0, h, POINTS, prior);
   let top = Number.NEGATIVE_INFINITY;
@@ -61,7 +85,7 @@ function posteriorOnGrid(lnPrior: LnPrior, xObs: number, sigmaDex: number, centr
     }
   }
   if (!Number.isFinite(top)) throw new RangeError('Eddington correction: the mass-function prior vanishes over the whole ±10σ range of the measured mass');
-  const w = new Float64Array(POINTS);
+  const w = wBuf;
   let total = 0;
   let first = 0;
   for (let i = 0; i < POINTS; i++) {
