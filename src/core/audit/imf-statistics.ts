@@ -2,6 +2,7 @@ import { quantilesByBuckets } from '../numeric/select.js';
 import type { HaloModel } from '../halos/halo-model.js';
 import type { MassToLightTable } from '../stars/mass-to-light.js';
 import { eddingtonFirstOrderShiftDex, eddingtonPosterior, type LnPrior } from './eddington.js';
+import { medianErrorQuantiles, pClassChange } from './draw-rule.js';
 import { verdictFor, type Verdict } from './verdict.js';
 
 export interface ImfResult {
@@ -27,6 +28,11 @@ export interface ImfResult {
   /** Time budget (absent when star formation has no time before z): median of mass formed / baryons accreted, and P(ratio > 1). */
   readonly time_budget_ratio_median?: number;
   readonly p_time_budget_over?: number;
+  /** Monte Carlo errors of the medians of log10 M⋆ and log10 ε_req, dex (draw-rule.ts). */
+  readonly log_mstar_median_mc_error_dex: number;
+  readonly log_eps_required_median_mc_error_dex: number;
+  /** The chance that the median ε_req's verdict lies across its nearest threshold, from that error (draw-rule.ts). */
+  readonly p_verdict_change: number;
 }
 
 /** Per-draw inputs shared by every IMF (valid draws only; logs are log10). */
@@ -84,26 +90,35 @@ type LnMassFunction = ((lh: number) => number) & {
  * nodes 0.0025 dex apart (computed on first use, so a galaxy evaluates the mass function at a few hundred
  * masses instead of at every point of every posterior grid), read with 4-point Lagrange interpolation
  * (error ≈ (3/128) h⁴ |f⁗|, below 1e-12 in the posterior median here; common practice, no source). Linear in the
- * first and last node interval. One table per EddingtonInputs object, i.e. per galaxy.
+ * first and last node interval. One table per EddingtonInputs object, i.e. per galaxy: the last one is kept,
+ * in buffers reused from galaxy to galaxy (a galaxy's IMFs are done one after another).
  */
-const priorCache = new WeakMap<EddingtonInputs, LnMassFunction>();
+let priorFor: { e: EddingtonInputs; f: LnMassFunction } | undefined;
+/** Node values and the generation that filled each (a node is set when its stamp is the current generation), reused from galaxy to galaxy. */
+let nodeBuf = new Float64Array(0);
+let nodeStamp = new Int32Array(0);
+let generation = 0;
 function lnMassFunctionAt(e: EddingtonInputs): LnMassFunction {
-  let f = priorCache.get(e);
-  if (f) return f;
+  if (priorFor && priorFor.e === e) return priorFor.f;
   const lm = e.halo.table.log10M;
   const lo = lm[0];
   const hi = lm[lm.length - 1];
   const nNodes = Math.floor((hi - lo) / PRIOR_STEP_DEX) + 1;
-  const nodes = new Float64Array(nNodes).fill(Number.NaN);
+  if (nodeBuf.length < nNodes) {
+    nodeBuf = new Float64Array(nNodes);
+    nodeStamp = new Int32Array(nNodes);
+  }
+  const nodes = nodeBuf;
+  const stamp = nodeStamp;
+  const gen = ++generation;
   const node = (i: number): number => {
-    let v = nodes[i];
-    if (v !== v) {
+    if (stamp[i] !== gen) {
       // the end nodes sit just inside the table so that the mass function is defined there
       const lh = Math.min(Math.max(lo + i * PRIOR_STEP_DEX, lo + 1e-9), hi - 1e-9);
-      v = Math.log(e.halo.dndlnM(10 ** lh, e.z));
-      nodes[i] = v;
+      nodes[i] = Math.log(e.halo.dndlnM(10 ** lh, e.z));
+      stamp[i] = gen;
     }
-    return v;
+    return nodes[i];
   };
   /** The Lagrange read at lh, with the nodes it uses already filled (nodes[] read directly). */
   const read = (lh: number): number => {
@@ -129,13 +144,13 @@ function lnMassFunctionAt(e: EddingtonInputs): LnMassFunction {
     if (lh > lo && lh < hi) fill(lh, lh);
     return read(lh);
   };
-  f = Object.assign(one, {
+  const f = Object.assign(one, {
     onGrid: (x0: number, h: number, n: number, out: Float64Array, shift: number) => {
       fill(x0 - shift, x0 + (n - 1) * h - shift);
       for (let i = 0; i < n; i++) out[i] = read(x0 + i * h - shift);
     },
   });
-  priorCache.set(e, f);
+  priorFor = { e, f };
   return f;
 }
 
@@ -260,8 +275,10 @@ export function imfStatistics(tab: MassToLightTable, d: SharedDraws, ed: Eddingt
       if (r > 0) tbOver++;
     }
   }
-  const [lm16, lmMed, lm84] = quantilesByBuckets(lm, nv, [0.16, 0.5, 0.84], { min: vMin, max: vMax });
-  const [le05, leMed, le95] = quantilesByBuckets(leps, nv, [0.05, 0.5, 0.95], { min: eMin, max: eMax });
+  const [qa, , qb] = medianErrorQuantiles(nv);
+  const [lm16, lmMed, lm84, lmA, lmB] = quantilesByBuckets(lm, nv, [0.16, 0.5, 0.84, qa, qb], { min: vMin, max: vMax });
+  const [le05, leMed, le95, leA, leB] = quantilesByBuckets(leps, nv, [0.05, 0.5, 0.95, qa, qb], { min: eMin, max: eMax });
+  const leErr = 0.5 * (leB - leA);
   const med = 10 ** leMed;
   const medCv = 10 ** quantilesByBuckets(lepsCv, nv, [0.5], { min: cMin, max: cMax })[0];
   const epsHost = Math.min(1, Math.max(med, ed.epsRef));
@@ -287,6 +304,9 @@ export function imfStatistics(tab: MassToLightTable, d: SharedDraws, ed: Eddingt
     eps_required_median_cv: medCv,
     verdict_cv: verdictFor(medCv, ed.epsRef),
     ...(ratioMed !== undefined && Number.isFinite(ratioMed) ? { time_budget_ratio_median: ratioMed, p_time_budget_over: tbOver / nv } : {}),
+    log_mstar_median_mc_error_dex: 0.5 * (lmB - lmA),
+    log_eps_required_median_mc_error_dex: leErr,
+    p_verdict_change: pClassChange(leMed, leErr, ed.epsRef),
   };
   return {
     result,
@@ -294,4 +314,40 @@ export function imfStatistics(tab: MassToLightTable, d: SharedDraws, ed: Eddingt
     eddingtonFirstOrderDex: eddingtonFirstOrderShiftDex(alpha, ed.sigmaDex),
     formedMassMedianMsun: lformed ? 10 ** quantilesByBuckets(lformed, nv, [0.5], { min: fMin, max: fMax })[0] : undefined,
   };
+}
+
+/** One IMF's vectors of the adaptive rule's looks: log10 M⋆ and log10 ε_req of the first n valid draws, with their ranges. */
+export interface LookState {
+  n: number;
+  readonly lm: Float64Array;
+  readonly le: Float64Array;
+  range: { lmMin: number; lmMax: number; leMin: number; leMax: number };
+}
+
+export function makeLookState(lm: Float64Array, le: Float64Array): LookState {
+  return { n: 0, lm, le, range: { lmMin: Infinity, lmMax: -Infinity, leMin: Infinity, leMax: -Infinity } };
+}
+
+/**
+ * The adaptive rule's look at one IMF (draw-rule.ts): log10 M⋆ and log10 ε_req of the valid draws,
+ * extended from look.n to n (the earlier draws are already there), then the two medians and their
+ * Monte Carlo errors over all n.
+ */
+export function medianLook(tab: MassToLightTable, base: Float64Array, gx: Float64Array, gy: Float64Array, logCeil: Float64Array, n: number, look: LookState): { logMstarErrDex: number; logEpsMedian: number; logEpsErrDex: number } {
+  const { lm, le, range: r } = look;
+  for (let i = look.n; i < n; i++) {
+    const v = base[i] + tab.logMassToLightAt(gx[i], gy[i]);
+    const e = v - logCeil[i];
+    lm[i] = v;
+    le[i] = e;
+    if (v < r.lmMin) r.lmMin = v;
+    if (v > r.lmMax) r.lmMax = v;
+    if (e < r.leMin) r.leMin = e;
+    if (e > r.leMax) r.leMax = e;
+  }
+  look.n = n;
+  const qs = medianErrorQuantiles(n);
+  const [ma, , mb] = quantilesByBuckets(lm, n, qs, { min: r.lmMin, max: r.lmMax });
+  const [ea, em, eb] = quantilesByBuckets(le, n, qs, { min: r.leMin, max: r.leMax });
+  return { logMstarErrDex: 0.5 * (mb - ma), logEpsMedian: em, logEpsErrDex: 0.5 * (eb - ea) };
 }
