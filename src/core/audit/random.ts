@@ -1,4 +1,4 @@
-/** A seeded stream of uniform and standard-normal deviates (xoroshiro128+; Box–Muller). */
+/** A seeded stream of uniform and standard-normal deviates (xoroshiro128+; the ziggurat for normals). */
 export interface RandomStream {
   uniform(): number;
   normal(): number;
@@ -38,8 +38,6 @@ class Xoroshiro128Plus implements RandomStream {
   private s00: number;
   private s11: number;
   private s10: number;
-  private spare = 0;
-  private hasSpare = false;
   constructor(seed: number) {
     this.s01 = -1;
     this.s00 = ~seed;
@@ -67,20 +65,59 @@ class Xoroshiro128Plus implements RandomStream {
     const b = this.next() & 0x7ffffff;
     return a * 1.4901161193847656e-8 + b * 1.1102230246251565e-16;
   };
-  /** Box–Muller, the cosine deviate first and the sine deviate kept for the next call. */
+  /**
+   * Standard normal by the ziggurat of Marsaglia & Tsang (2000, J. Stat. Softw. 5(8), "The ziggurat
+   * method for generating random variables"), 128 layers: one 32-bit output is the signed position,
+   * the top 7 bits of the next the layer (separate bits, which avoids the correlation of layer and
+   * value Doornik 2005 found in the original); ~98.8% of draws end at the first comparison, the rest
+   * use the wedge test or Marsaglia's exponential tail beyond r = 3.442619855899.
+   */
   readonly normal = (): number => {
-    if (this.hasSpare) {
-      this.hasSpare = false;
-      return this.spare;
+    for (;;) {
+      const j = this.next();
+      const iz = this.next() >>> 25;
+      if (Math.abs(j) < ZIG_K[iz]) return j * ZIG_W[iz];
+      const x = j * ZIG_W[iz];
+      if (iz === 0) {
+        // the tail beyond r: x = −ln(u1)/r until −2 ln(u2) > x²
+        let tx: number;
+        let ty: number;
+        do {
+          tx = -Math.log(1 - this.uniform()) / ZIG_R;
+          ty = -Math.log(1 - this.uniform());
+        } while (ty + ty < tx * tx);
+        return j > 0 ? ZIG_R + tx : -ZIG_R - tx;
+      }
+      // the wedge between layers iz and iz − 1
+      if (ZIG_F[iz] + this.uniform() * (ZIG_F[iz - 1] - ZIG_F[iz]) < Math.exp(-0.5 * x * x)) return x;
     }
-    let u = this.uniform();
-    while (u <= 0) u = this.uniform();
-    const v = this.uniform();
-    const r = Math.sqrt(-2 * Math.log(u));
-    this.spare = r * Math.sin(2 * Math.PI * v);
-    this.hasSpare = true;
-    return r * Math.cos(2 * Math.PI * v);
   };
+}
+
+/** Ziggurat tables (Marsaglia & Tsang 2000, section 3, 128 layers): r = x of the base layer, v = the area of each layer. */
+const ZIG_R = 3.442619855899;
+const ZIG_V = 9.91256303526217e-3;
+const ZIG_K = new Float64Array(128);
+const ZIG_W = new Float64Array(128);
+const ZIG_F = new Float64Array(128);
+{
+  const m = 2147483648; // 2^31: positions are signed 32-bit integers
+  let dn = ZIG_R;
+  let tn = dn;
+  const q = ZIG_V / Math.exp(-0.5 * dn * dn);
+  ZIG_K[0] = (dn / q) * m;
+  ZIG_K[1] = 0;
+  ZIG_W[0] = q / m;
+  ZIG_W[127] = dn / m;
+  ZIG_F[0] = 1;
+  ZIG_F[127] = Math.exp(-0.5 * dn * dn);
+  for (let i = 126; i >= 1; i--) {
+    dn = Math.sqrt(-2 * Math.log(ZIG_V / dn + Math.exp(-0.5 * dn * dn)));
+    ZIG_K[i + 1] = (dn / tn) * m;
+    tn = dn;
+    ZIG_F[i] = Math.exp(-0.5 * dn * dn);
+    ZIG_W[i] = dn / m;
+  }
 }
 
 export function makeRandom(seed: number): RandomStream {
