@@ -8,7 +8,7 @@ import { makeAccretionHistory } from './accretion.js';
 import { attribute, type AttributionDetail } from './attribution.js';
 import type { AuditChoices } from './choices.js';
 import type { CeilingTable } from './ceiling.js';
-import { drawGalaxy, fastBackground, galaxyDrawStream, tabulatedBackground, type GalaxyDraws } from './galaxy-draws.js';
+import { drawGalaxy, galaxyDrawStream, tabulatedBackground, type GalaxyDraws } from './galaxy-draws.js';
 import { DRAW_BLOCK, drawPrecisionOf, looksFor, normalQuantile, P_CLASS_CHANGE_MAX } from './draw-rule.js';
 import { imfStatistics, makeLookState, medianLook, type ImfResult, type ImfStatistics, type SharedDraws } from './imf-statistics.js';
 import { rescaleBase, rescalePosition } from './imf-rescale.js';
@@ -221,8 +221,7 @@ function drawAccretion(ctx: AuditContext, g: GalaxyInput, d: GalaxyDraws, valid:
   for (let i = 0; i < nv; i++) halos[i] = logCeil[i] - lfb;
   // ages and distances per draw from the draws' own tables (galaxy-draws.ts), not the direct integrals
   const bg = tabulatedBackground(halo.background);
-  const lnAgeAt = fastBackground(halo.background).lnAgeAt;
-  return logAccretedBaryonsOfDraws(bg, makeAccretionHistory(bg), halo.baryonFraction, choices.formationZ, nv, valid, d.lnOnePlusZ, lnAgeAt, d.log10AgeMyr, halos, scratch.f64('accretion.out', nv));
+  return logAccretedBaryonsOfDraws(bg, makeAccretionHistory(bg), halo.baryonFraction, choices.formationZ, nv, valid, d.lnOnePlusZ, d.lnAgeGyr, d.log10AgeMyr, halos, scratch.f64('accretion.out', nv));
 }
 
 function timeBudgetOf(ctx: AuditContext, g: GalaxyInput, head: ImfStatistics, acc: Float64Array | undefined, notes: string[]): TimeBudget | null {

@@ -88,8 +88,9 @@ export function tabulatedBackground(bg: Background): Background {
 export interface GalaxyDraws {
   readonly n: number;
   readonly z: Float64Array;
-  /** ln(1 + z) of each draw (the variable of the background tables). */
+  /** ln(1 + z) of each draw (the variable of the background tables), and ln t(z) [Gyr] read there. */
   readonly lnOnePlusZ: Float64Array;
+  readonly lnAgeGyr: Float64Array;
   /** log10 of the population age (Myr) and of the rest wavelength (μm; NaN where excluded). */
   readonly log10AgeMyr: Float64Array;
   readonly log10LambdaRestUm: Float64Array;
@@ -131,6 +132,7 @@ export function galaxyDrawStream(g: GalaxyInput, capacity: number, seed: number,
   const vec = (name: string): Float64Array => (scratch ? scratch.f64(name, capacity) : new Float64Array(capacity));
   const z = vec('draws.z');
   const lnZ1 = vec('draws.x');
+  const lnT = vec('draws.lnAge');
   const lL = vec('draws.lnu');
   const lM = vec('draws.mass');
   const lAge = vec('draws.age');
@@ -148,7 +150,7 @@ export function galaxyDrawStream(g: GalaxyInput, capacity: number, seed: number,
   const needBeta = g.log10Mstar === undefined && g.beta !== undefined && g.betaErr > 0;
   const needMass = g.log10Mstar !== undefined && g.log10MstarErr > 0;
   const l0 = Math.log10(ML_AGE_MIN_MYR);
-  const draws = { n: 0, z, lnOnePlusZ: lnZ1, log10AgeMyr: lAge, log10LambdaRestUm: lLam, log10Lnu: lL, log10MassRef: lM, excluded: 0 };
+  const draws = { n: 0, z, lnOnePlusZ: lnZ1, lnAgeGyr: lnT, log10AgeMyr: lAge, log10LambdaRestUm: lLam, log10Lnu: lL, log10MassRef: lM, excluded: 0 };
   const extend = (n: number): void => {
     if (n > capacity) throw new RangeError(`draws: ${n} asked for, room for ${capacity}`);
     let excluded = 0;
@@ -175,7 +177,9 @@ export function galaxyDrawStream(g: GalaxyInput, capacity: number, seed: number,
       z[k] = zk;
       const x = Math.log1p(zk);
       lnZ1[k] = x;
-      const log10TMax = bg.lnAgeAt(x) / Math.LN10 + 3; // Myr
+      const lt = bg.lnAgeAt(x);
+      lnT[k] = lt;
+      const log10TMax = lt / Math.LN10 + 3; // Myr
       const la = l0 + uAge * (log10TMax - l0);
       lAge[k] = la;
       if (g.log10Mstar !== undefined) {

@@ -120,15 +120,16 @@ export function logAccretedBaryons(
 
 /**
  * logAccretedBaryons for the Monte Carlo draws, the same formula and tables read without repeated
- * work: each draw's x = ln(1+z) and ln t(z) come from the draws (galaxy-draws.ts), the start of star
- * formation is placed on the age-inverse table's own bracket (the node the bisection would find, by a
- * uniform index over ln t) and G is read there in u directly, without the z = e^u − 1 round trip of
- * redshiftAtAgeGyr and the accretion history. It differs from logAccretedBaryons on the same tables by
- * rounding only (≤ 1e-12 relative in ΔM_h; time-budget.test.ts). Draws i < n, picked by idx
- * (x, lnT, age and halo mass are indexed by idx[i]; halo mass by i).
+ * work: each draw's x = ln(1+z) and ln t(z) come from the draws (galaxy-draws.ts); the start of star
+ * formation is taken in ln t, ln t_start = ln t + ln(1 − ρ) with ρ = age/t(z) (one exponential, no
+ * cancellation), capped at ln t(z_form); it is placed on the age-inverse table's own bracket (the node
+ * the bisection would find, by a uniform index over ln t) and G is read there in u directly, without
+ * the z = e^u − 1 round trip of redshiftAtAgeGyr and the accretion history. It differs from
+ * logAccretedBaryons on the same tables by rounding only (≤ 1e-12 relative in ΔM_h where the interval
+ * is not tiny; draw-batches.test.ts). Draws i < n, picked by idx (x, ln t and age are indexed by
+ * idx[i]; halo mass by i).
  *
  * @param bg the background whose tables are read (tabulatedBackground(bg): the ages of the draws).
- * @param lnAgeGyrAt ln t(z) [Gyr] at x = ln(1+z), the draws' own table.
  */
 export function logAccretedBaryonsOfDraws(
   bg: Background,
@@ -138,7 +139,7 @@ export function logAccretedBaryonsOfDraws(
   n: number,
   idx: ArrayLike<number>,
   x: ArrayLike<number>,
-  lnAgeGyrAt: (x: number) => number,
+  lnAgeGyr: ArrayLike<number>,
   log10AgeMyr: ArrayLike<number>,
   log10HaloMassMsun: ArrayLike<number>,
   out: Float64Array,
@@ -149,23 +150,26 @@ export function logAccretedBaryonsOfDraws(
   const lTop = lnT[0];
   const lBottom = lnT[nT - 1];
   const cells = guess.length - 1;
-  const tForm = bg.ageGyr(formationZ);
+  const lnTForm = Math.log(bg.ageGyr(formationZ));
   const lfb = Math.log10(baryonFraction);
   const { h, g, k } = history.gTable;
   const ng = g.length;
   const c10 = 0.1 * Math.LN10;
+  const gyrPerMyr = 3 * Math.LN10; // ln 1000
   for (let i = 0; i < n; i++) {
     const j = idx[i];
     const xj = x[j];
-    const tObs = Math.exp(lnAgeGyrAt(xj));
-    const tStart = Math.max(tObs - Math.exp(log10AgeMyr[j] * Math.LN10) / 1000, tForm);
-    if (!(tStart < tObs)) {
-      out[i] = Number.NEGATIVE_INFINITY;
+    const lt = lnAgeGyr[j];
+    if (!(lnTForm < lt)) {
+      out[i] = Number.NEGATIVE_INFINITY; // z at or above the formation redshift: no interval
       continue;
     }
+    // ln t_start = ln t + ln(1 − age/t), no earlier than t(z_form)
+    const rho = Math.exp(log10AgeMyr[j] * Math.LN10 - gyrPerMyr - lt);
+    let l = rho < 1 ? lt + Math.log1p(-rho) : Number.NEGATIVE_INFINITY;
+    if (l < lnTForm) l = lnTForm;
+    if (!(l <= lTop && l >= lBottom)) throw new RangeError(`time budget: age ${Math.exp(l)} Gyr outside the tabulated 0 ≤ z ≤ 200`);
     // u of the start on the age-inverse table (its bracket lo, weight w), then G there
-    const l = Math.log(tStart);
-    if (!(l <= lTop && l >= lBottom)) throw new RangeError(`time budget: age ${tStart} Gyr outside the tabulated 0 ≤ z ≤ 200`);
     let c = Math.floor((lTop - l) / dl);
     if (c > cells) c = cells;
     let lo = guess[c];
@@ -179,10 +183,19 @@ export function logAccretedBaryonsOfDraws(
     const i0 = Math.min(Math.floor(t0), ng - 2);
     const g0 = g[i0] + (t0 - i0) * (g[i0 + 1] - g[i0]);
     // the history's ΔM_h = −m0 expm1(−10 ln(y/y0)), y = y0 + k (G(z_start) − G(z)), y0 = (m0/1e12)^−0.1,
-    // as log10 m0 + log10(−expm1(−10 log1p(k ΔG / y0))): no powers, and no cancellation in y/y0
+    // as log10 m0 + log10(1 − (1 + e)^−10), e = k ΔG / y0: no powers and no cancellation in y/y0. For
+    // e ≥ 1e-3 the tenth power by four products (1 − q^10 then loses ≤ 1e-16/e ≤ 1e-13 relative),
+    // below it −expm1(−10 log1p(e))
     const lm = log10HaloMassMsun[i];
     const e = k * (gStart - g0) * Math.exp(c10 * (lm - 12));
-    out[i] = lfb + lm + Math.log(-Math.expm1(-10 * Math.log1p(e))) / Math.LN10;
+    let frac: number;
+    if (e >= 1e-3) {
+      const q = 1 / (1 + e);
+      const q2 = q * q;
+      const q4 = q2 * q2;
+      frac = 1 - q4 * q4 * q2;
+    } else frac = -Math.expm1(-10 * Math.log1p(e));
+    out[i] = lfb + lm + Math.log(frac) / Math.LN10;
   }
   return out;
 }

@@ -22,17 +22,19 @@ describe('time budget per draw: logAccretedBaryonsOfDraws equals logAccretedBary
       const n = 5000;
       const z = new Float64Array(n);
       const x = new Float64Array(n);
+      const lnT = new Float64Array(n);
       const age = new Float64Array(n);
       const halo = new Float64Array(n);
       for (let i = 0; i < n; i++) {
         z[i] = 4 + 12 * rnd.uniform();
         x[i] = Math.log1p(z[i]);
+        lnT[i] = lnAgeAt(x[i]);
         // log-uniform from 1 Myr to the age of the universe at z (as galaxy-draws.ts draws it)
         age[i] = rnd.uniform() * (Math.log10(tab.ageGyr(z[i])) + 3);
         halo[i] = 9 + 4 * rnd.uniform();
       }
       const idx = Int32Array.from({ length: n }, (_, i) => i);
-      const got = logAccretedBaryonsOfDraws(tab, history, FB, formationZ, n, idx, x, lnAgeAt, age, halo, new Float64Array(n));
+      const got = logAccretedBaryonsOfDraws(tab, history, FB, formationZ, n, idx, x, lnT, age, halo, new Float64Array(n));
       const want = logAccretedBaryons(tab, history, FB, formationZ, z, age, halo);
       let empty = 0;
       for (let i = 0; i < n; i++) {
