@@ -10,6 +10,6 @@ import { bundleForNode } from '../../src/cli/bundle.mjs';
 const out = `node_modules/.cache/baryon-audit/bench-${process.pid}.mjs`;
 await bundleForNode('test/bench/bench.ts', out);
 await import(pathToFileURL(out).href);
-if (process.env.BENCH_NUMPY_ONLY === '1') console.log('\n(web benchmarks skipped: BENCH_NUMPY_ONLY=1)');
+if (process.env.BENCH_NUMPY_ONLY === '1' || process.env.BENCH_NO_WEB === '1') console.log('\n(web benchmarks skipped: BENCH_NUMPY_ONLY or BENCH_NO_WEB)');
 else if (existsSync('/usr/bin/chromium')) spawnSync(process.execPath, ['test/bench/web.mjs'], { stdio: 'inherit' });
 else console.log('\n(web benchmarks skipped: /usr/bin/chromium is not installed; apt-get install chromium)');

@@ -5,8 +5,8 @@ import { DRAW_RULE_SPECS, specByKey } from './choice-specs.js';
  * When a galaxy's Monte Carlo stops (the adaptive rule; with fixedDraws every galaxy gets `draws`).
  * Our own rule, from the usual order-statistics error of a sample median (common practice, no source):
  *
- * - draws come in blocks of DRAW_BLOCK from the galaxy's one random stream (seeded by seed + id), up
- *   to `draws`; after each block, over the valid draws so far and for every compared IMF:
+ * - draws come from the galaxy's one random stream (seeded by seed + id), FIRST_LOOK of them, then
+ *   blocks of DRAW_BLOCK, up to `draws`; after each, over the valid draws so far and for every compared IMF:
  * - the Monte Carlo error of the median of log10 M⋆ and of log10 ε_req is half the distance between
  *   the order statistics at the ranks n/2 ± √n/2 (the binomial 1σ of the median's rank; for a normal
  *   sample this is 1.2533 σ/√n);
@@ -18,6 +18,8 @@ import { DRAW_RULE_SPECS, specByKey } from './choice-specs.js';
  * The rule depends only on the draws, so seed + id + these constants reproduce every stop.
  */
 export const DRAW_BLOCK = 1000;
+/** The first look comes after this many draws (a look at fewer rarely stops at the default precision). */
+export const FIRST_LOOK = 2000;
 export const P_CLASS_CHANGE_MAX = 1e-3;
 
 /** The precision of the medians the rule asks for: the choice, or its default (DRAW_RULE_SPECS). */
@@ -29,9 +31,9 @@ export function drawPrecisionOf(c: { readonly drawPrecisionDex?: number }): numb
 export function drawRuleText(c: { readonly fixedDraws?: boolean; readonly draws: number; readonly drawPrecisionDex?: number }): string {
   if (c.fixedDraws === true) return `fixed: every galaxy gets ${c.draws} draws`;
   return (
-    `adaptive: blocks of ${DRAW_BLOCK} draws up to ${c.draws}; stop when, for every compared IMF, the Monte Carlo errors of the medians of ` +
+    `adaptive: ${FIRST_LOOK} draws, then blocks of ${DRAW_BLOCK}, up to ${c.draws}; stop when, for every compared IMF, the Monte Carlo errors of the medians of ` +
     `log10 M* and log10 eps_req (half the spread of the order statistics at ranks n/2 ± sqrt(n)/2) are ≤ ${drawPrecisionOf(c)} dex and the ` +
-    `median eps_req is z errors from both thresholds, z = Phi^-1(1 − ${P_CLASS_CHANGE_MAX}/looks), looks = ceil(${c.draws}/${DRAW_BLOCK})`
+    `median eps_req is z errors from both thresholds, z = Phi^-1(1 − ${P_CLASS_CHANGE_MAX}/looks), looks = ${looksFor(c.draws)}`
   );
 }
 
@@ -59,9 +61,9 @@ export function normalQuantile(p: number): number {
   return 0.5 * (lo + hi);
 }
 
-/** Number of looks the rule can take before the maximum: ⌈max / DRAW_BLOCK⌉. */
+/** Number of looks the rule can take before the maximum: 1 + ⌈(max − FIRST_LOOK) / DRAW_BLOCK⌉. */
 export function looksFor(maxDraws: number): number {
-  return Math.max(1, Math.ceil(maxDraws / DRAW_BLOCK));
+  return 1 + Math.max(0, Math.ceil((maxDraws - FIRST_LOOK) / DRAW_BLOCK));
 }
 
 /**

@@ -9,7 +9,7 @@ import { attribute, type AttributionDetail } from './attribution.js';
 import type { AuditChoices } from './choices.js';
 import type { CeilingTable } from './ceiling.js';
 import { drawGalaxy, galaxyDrawStream, tabulatedBackground, type GalaxyDraws } from './galaxy-draws.js';
-import { DRAW_BLOCK, drawPrecisionOf, looksFor, normalQuantile, P_CLASS_CHANGE_MAX } from './draw-rule.js';
+import { DRAW_BLOCK, drawPrecisionOf, FIRST_LOOK, looksFor, normalQuantile, P_CLASS_CHANGE_MAX } from './draw-rule.js';
 import { imfStatistics, makeLookState, medianLook, type ImfResult, type ImfStatistics, type SharedDraws } from './imf-statistics.js';
 import { rescaleBase, rescalePosition } from './imf-rescale.js';
 import { idSeed, makeRandom } from './random.js';
@@ -273,7 +273,7 @@ function mainDraws(ctx: AuditContext, g: GalaxyInput, seed: number, imfTables: r
   const precision = drawPrecisionOf(choices);
   let nv = 0;
   let stop: DrawStop = fixed ? 'fixed' : 'maximum';
-  for (let n = fixed ? nMax : Math.min(DRAW_BLOCK, nMax); ; n = Math.min(n + DRAW_BLOCK, nMax)) {
+  for (let n = fixed ? nMax : Math.min(FIRST_LOOK, nMax); ; n = Math.min(n + DRAW_BLOCK, nMax)) {
     const k0 = d.n;
     const nv0 = nv;
     stream.extend(n);
@@ -281,8 +281,8 @@ function mainDraws(ctx: AuditContext, g: GalaxyInput, seed: number, imfTables: r
     fillGrid(g, d, validBuf, nv0, nv, imfTables[0], refTable, grid);
     ceil.log10HaloMassesAt(d.z, validBuf.subarray(nv0, nv), nv - nv0, undefined, lfb, logCeilBuf.subarray(nv0, nv));
     if (fixed || n >= nMax) break;
-    // a look needs half a block of valid draws; every IMF settled, both errors within the precision
-    if (nv >= DRAW_BLOCK / 2) {
+    // a look needs half the first look's draws valid; every IMF settled, both errors within the precision
+    if (nv >= FIRST_LOOK / 2) {
       let settled = true;
       for (let j = 0; j < imfTables.length && settled; j++) {
         const m = medianLook(imfTables[j], grid.base, grid.x, grid.y, logCeilBuf, nv, looks[j]);

@@ -46,4 +46,4 @@ export type { Reconciliation } from './reconcile.js';
 export { auditCovariance, makeCeilingUncertainty } from './ceiling-uncertainty.js';
 export { CITATIONS, citeInText, referencesFor } from './citations.js';
 export type { Citation } from './citations.js';
-export { DRAW_BLOCK, P_CLASS_CHANGE_MAX, drawPrecisionOf, drawRuleText } from './draw-rule.js';
+export { DRAW_BLOCK, FIRST_LOOK, P_CLASS_CHANGE_MAX, drawPrecisionOf, drawRuleText } from './draw-rule.js';
