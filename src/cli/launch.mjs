@@ -1,12 +1,14 @@
 #!/usr/bin/env node
 // Runs the command-line tool, bundling src/cli/main.ts with esbuild first when any source is newer
-// than the cached bundle (node_modules/.cache/baryon-audit/cli.mjs).
+// than the cached bundle (node_modules/.cache/baryon-audit/cli-<checkout>.mjs: one per checkout, since
+// checkouts may share one node_modules and must not run each other's bundle).
 import { existsSync, readdirSync, statSync } from 'node:fs';
 import { dirname, join, resolve } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
+import { createHash } from 'node:crypto';
 
 const root = resolve(dirname(fileURLToPath(import.meta.url)), '../..');
-const out = join(root, 'node_modules/.cache/baryon-audit/cli.mjs');
+const out = join(root, `node_modules/.cache/baryon-audit/cli-${createHash('sha256').update(root).digest('hex').slice(0, 12)}.mjs`);
 
 function newest(dir) {
   let t = 0;
