@@ -2,13 +2,18 @@
 // npm run bench: every benchmark of the project. The numeric core, populations and audit (bundled
 // from test/bench/bench.ts with esbuild), then the web app in headless Chromium (test/bench/web.mjs).
 // No timing assertions anywhere: this prints medians, targets and scaling exponents.
-import { existsSync } from 'node:fs';
+import { existsSync, rmSync } from 'node:fs';
 import { spawnSync } from 'node:child_process';
 import { pathToFileURL } from 'node:url';
 import { bundleForNode } from '../../src/cli/bundle.mjs';
 
-const out = 'node_modules/.cache/baryon-audit/bench.mjs';
+const out = `node_modules/.cache/baryon-audit/bench-${process.pid}.mjs`;
 await bundleForNode('test/bench/bench.ts', out);
-await import(pathToFileURL(out).href);
-if (existsSync('/usr/bin/chromium')) spawnSync(process.execPath, ['test/bench/web.mjs'], { stdio: 'inherit' });
+try {
+  await import(pathToFileURL(out).href);
+} finally {
+  rmSync(out, { force: true }); // the bundle is this run's own
+}
+if (process.env.BENCH_NUMPY_ONLY === '1' || process.env.BENCH_NO_WEB === '1') console.log('\n(web benchmarks skipped: BENCH_NUMPY_ONLY or BENCH_NO_WEB)');
+else if (existsSync('/usr/bin/chromium')) spawnSync(process.execPath, ['test/bench/web.mjs'], { stdio: 'inherit' });
 else console.log('\n(web benchmarks skipped: /usr/bin/chromium is not installed; apt-get install chromium)');

@@ -19,7 +19,7 @@ import { toCsv, toJson } from '../output.js';
 import { DEMO_SAMPLE_CSV, DEMO_SURVEY } from '../../demo/demo-sample.js';
 import { COSMOLOGY_HELP, COSMOLOGY_OPTIONS, cosmologyFrom, format, num, parse } from '../args.js';
 import { CliError } from '../cli-error.js';
-import { CHOICE_HELP, CHOICE_OPTIONS, flagOfField, numericChoices, specFlag } from '../choice-flags.js';
+import { CHOICE_HELP, CHOICE_OPTIONS, flagOfField, numericChoices, specFlag, switchChoices } from '../choice-flags.js';
 import { parseCovarianceCsv, type ParamCovariance } from '../../core/cosmology/index.js';
 import { HALO_HELP, HALO_OPTIONS, haloChoices } from '../halo-options.js';
 import { defaultJobs, maxJobs } from '../parallel-audit.js';
@@ -29,7 +29,7 @@ import type { LineOut } from '../main.js';
 import { imfList, sfhFrom, STAR_HELP, STAR_OPTIONS } from '../star-options.js';
 
 export const ASSESS_HELP = `Usage: assess SAMPLE.csv --area-arcmin2 40 --z-range 7:11 [--imf ...] [--eps-ref 0.3] [--quantile 0.997]
-              [--draws 20000] [--seed 1] [--format json|csv|md]
+              [--draws 20000] [--fixed-draws] [--seed 1] [--format json|csv|md]
        assess --demo [--format md]            the embedded invented demo field and sample
        assess --record RECORD.json            re-run a saved record (reproduces its numbers exactly)
 For every galaxy: the stellar mass under each IMF (Monte Carlo over redshift, errors and ages),
@@ -195,6 +195,7 @@ export async function runAssess(argv: string[], out: LineOut = () => undefined, 
       ...(headlineImf !== undefined ? { headlineImf } : {}),
       sfh: typeof values.sfh === 'string' ? values.sfh : 'constant',
       ...numericChoices(values),
+      ...switchChoices(values),
       survey,
       surveys,
       zBins: typeof values['z-bins'] === 'string' ? String(values['z-bins']).split(',').map((b) => range('--z-bins', b, Z_MIN, Z_MAX)) : [],

@@ -30,6 +30,8 @@ export interface AccretionHistory {
   massAt(massMsun: number, z0: number, z: number): number;
   /** Mass (Msun) accreted between z ≥ z0 and z0 by a halo of massMsun at z0: M(z0) − M(z). */
   accretedMsun(massMsun: number, z0: number, z: number): number;
+  /** The table of G on u = ln(1+z) = i h (read linearly), for batch work in u (time-budget.ts). */
+  readonly gTable: { readonly h: number; readonly g: Float64Array; readonly k: number };
 }
 
 const U_STEP = 0.002;
@@ -69,6 +71,7 @@ export function makeAccretionHistory(bg: Background): AccretionHistory {
     return 1e12 * y ** -10;
   };
   const history: AccretionHistory = {
+    gTable: { h, g: gTab, k },
     massAt,
     accretedMsun: (m0, z0, z) => {
       // 1 − (y0/y)^10 without cancellation: −expm1(10 ln(y0/y)).

@@ -26,6 +26,12 @@ export interface CeilingTable {
   /** log10 of haloMassAtQuantile (no power of ten: for the Monte Carlo loop). */
   log10HaloMassAtQuantile(z: number): number;
   log10HaloMassAtQuantileCv(z: number, sigmaDm: number): number;
+  /**
+   * The same values as log10HaloMassAtQuantile (sigmaDm undefined) or log10HaloMassAtQuantileCv, bit
+   * for bit, for z[idx[i]] (or z[i] without idx), plus `add`, written to out[i]: the nodes the batch
+   * needs are filled first, then read from the array without a call per draw.
+   */
+  log10HaloMassesAt(z: ArrayLike<number>, idx: ArrayLike<number> | undefined, n: number, sigmaDm: number | undefined, add: number, out: Float64Array): Float64Array;
   /** Halo mass at any other quantile q2 of the same slice distribution (for figure bands). */
   haloMassAt(z: number, q2: number): number;
   /** log10 of the mass above which N(>M) = count haloes are expected in the slice, as a function of z, nodes cached (q2 = e^−count). */
@@ -138,9 +144,10 @@ export function makeCeilingTable(halo: HaloModel, areaArcmin2: number, quantile:
     return (1 - t) * f(j) + t * f(j + 1);
   };
   /** log10 M per grid node, filled on first use (NaN = not yet computed). */
-  const nodeArray = (fill: (jc: number) => number): ((jc: number) => number) => {
+  type NodeFn = ((jc: number) => number) & { readonly arr: Float64Array };
+  const nodeArray = (fill: (jc: number) => number): NodeFn => {
     const arr = new Float64Array(nz).fill(Number.NaN);
-    return (jc) => {
+    const f = (jc: number): number => {
       let v = arr[jc];
       if (v !== v) {
         v = fill(jc);
@@ -148,10 +155,11 @@ export function makeCeilingTable(halo: HaloModel, areaArcmin2: number, quantile:
       }
       return v;
     };
+    return Object.assign(f, { arr });
   };
   const poissonCached = nodeArray((jc) => poissonLogM(jc));
-  const cvArrays = new Map<number, (jc: number) => number>();
-  const cvFor = (sigmaDm: number): ((jc: number) => number) => {
+  const cvArrays = new Map<number, NodeFn>();
+  const cvFor = (sigmaDm: number): NodeFn => {
     let f = cvArrays.get(sigmaDm);
     if (!f) {
       f = nodeArray((jc) => cvLogM(jc, sigmaDm));
@@ -179,6 +187,31 @@ export function makeCeilingTable(halo: HaloModel, areaArcmin2: number, quantile:
     haloMassAtQuantileCv: (z, sigmaDm) => interp(z, cvFor(sigmaDm)),
     log10HaloMassAtQuantile: (z) => interpLog(z, poissonCached),
     log10HaloMassAtQuantileCv: (z, sigmaDm) => interpLog(z, cvFor(sigmaDm)),
+    log10HaloMassesAt: (zs, idx, n, sigmaDm, add, out) => {
+      const f = sigmaDm === undefined ? poissonCached : cvFor(sigmaDm);
+      let zMin = Infinity;
+      let zMax = -Infinity;
+      for (let i = 0; i < n; i++) {
+        const z = idx ? zs[idx[i]] : zs[i];
+        if (z < zMin) zMin = z;
+        if (z > zMax) zMax = z;
+        if (!(z >= zLo && z <= zHi)) interpLog(z, f); // throws the per-point message
+      }
+      if (!(n > 0)) return out;
+      // the nodes interpLog would read, filled once
+      const j0 = Math.min(Math.floor((zMin - zLo) / STEP), nz - 2);
+      const j1 = Math.min(Math.floor((zMax - zLo) / STEP), nz - 2) + 1;
+      for (let j = j0; j <= j1; j++) f(j);
+      const arr = f.arr;
+      for (let i = 0; i < n; i++) {
+        const z = idx ? zs[idx[i]] : zs[i];
+        const x = (z - zLo) / STEP;
+        const j = Math.min(Math.floor(x), nz - 2);
+        const t = x - j;
+        out[i] = add + ((1 - t) * arr[j] + t * arr[j + 1]);
+      }
+      return out;
+    },
     expectedAbove: (m, z) => {
       const jc = Math.min(nz - 1, Math.max(0, Math.round((z - zLo) / STEP)));
       const N = countsAt(jc);

@@ -5,7 +5,7 @@ import { validateCosmology } from '../cosmology/validate.js';
 import { MASS_FUNCTION_NAMES } from '../halos/models.js';
 import { TRANSFER_NAMES } from '../power/transfer.js';
 import { parseSfh } from '../stars/sfh.js';
-import { CHOICE_SPECS, DELTA_C_SPEC, SURVEY_SPECS, Z_BIN_SPEC, specProblem, type ChoiceSpec } from './choice-specs.js';
+import { CHOICE_SPECS, CHOICE_SWITCHES, DELTA_C_SPEC, DRAW_RULE_SPECS, SURVEY_SPECS, Z_BIN_SPEC, specProblem, type ChoiceSpec } from './choice-specs.js';
 import { imfProblem } from './imf-check.js';
 
 /**
@@ -117,12 +117,18 @@ function checkCovariance(c: unknown): ChoiceProblem[] {
 
 /**
  * Every problem with a choices object (any JSON value). An empty list means `x` is a valid
- * AuditChoices. `headlineImf` may be missing (it defaults to the first of `imfs`).
+ * AuditChoices. `headlineImf` may be missing (it defaults to the first of `imfs`), and so may the
+ * switches of CHOICE_SWITCHES and the numbers of DRAW_RULE_SPECS (their defaults).
  */
 export function checkChoices(x: unknown): ChoiceProblem[] {
   if (!isObject(x)) return [{ field: '(choices)', reason: `must be an object (got ${show(x)})` }];
   const out: ChoiceProblem[] = [];
   for (const spec of CHOICE_SPECS) num(out, spec.key, spec, x[spec.key]);
+  for (const spec of DRAW_RULE_SPECS) if (x[spec.key] !== undefined) num(out, spec.key, spec, x[spec.key]);
+  for (const spec of CHOICE_SWITCHES) {
+    const v = x[spec.key];
+    if (v !== undefined && typeof v !== 'boolean') out.push({ field: spec.key, reason: `must be true or false (got ${show(v)})` });
+  }
   out.push(...checkCosmology(x.cosmology));
   if (typeof x.massFunction !== 'string' || !MASS_FUNCTION_NAMES.includes(x.massFunction)) out.push({ field: 'massFunction', reason: `must be one of ${MASS_FUNCTION_NAMES.join(', ')} (got ${show(x.massFunction)})` });
   out.push(...checkTransfer(x.transfer), ...checkDeltaC(x.deltaC));

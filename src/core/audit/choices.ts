@@ -30,7 +30,12 @@ export interface AuditChoices {
   readonly epsRef: number;
   /** Rarest-halo quantile q. */
   readonly quantile: number;
+  /** Monte Carlo draws per galaxy: the most under the adaptive rule (draw-rule.ts), or all of them with fixedDraws. */
   readonly draws: number;
+  /** Every galaxy gets exactly `draws` (default false: the adaptive rule). */
+  readonly fixedDraws?: boolean;
+  /** The adaptive rule's precision on the medians of log10 M⋆ and log10 ε_req, dex (default DRAW_RULE_SPECS). */
+  readonly drawPrecisionDex?: number;
   readonly seed: number;
   /** Width of the redshift slice around each galaxy, Δz. */
   readonly sliceDz: number;

@@ -8,13 +8,14 @@ import { makeAccretionHistory } from './accretion.js';
 import { attribute, type AttributionDetail } from './attribution.js';
 import type { AuditChoices } from './choices.js';
 import type { CeilingTable } from './ceiling.js';
-import { drawGalaxy, tabulatedBackground, type GalaxyDraws } from './galaxy-draws.js';
-import { imfStatistics, type ImfResult, type ImfStatistics, type SharedDraws } from './imf-statistics.js';
+import { drawGalaxy, galaxyDrawStream, tabulatedBackground, type GalaxyDraws } from './galaxy-draws.js';
+import { DRAW_BLOCK, drawPrecisionOf, FIRST_LOOK, looksFor, normalQuantile, P_CLASS_CHANGE_MAX } from './draw-rule.js';
+import { imfStatistics, makeLookState, medianLook, type ImfResult, type ImfStatistics, type SharedDraws } from './imf-statistics.js';
 import { rescaleBase, rescalePosition } from './imf-rescale.js';
 import { idSeed, makeRandom } from './random.js';
 import type { GalaxyInput } from './sample.js';
 import { reconcileGalaxy, type Reconciliation } from './reconcile.js';
-import { logAccretedBaryons } from './time-budget.js';
+import { logAccretedBaryonsOfDraws } from './time-budget.js';
 import { verdictFor, type Attribution, type Verdict } from './verdict.js';
 
 export type { ImfResult } from './imf-statistics.js';
@@ -64,7 +65,32 @@ export interface GalaxyAudit {
   readonly reconcile: Reconciliation[];
   readonly draws_used: number;
   readonly draws_excluded: number;
+  /** How many draws were made and why they stopped, and the precision reached (the worst over the compared IMFs). */
+  readonly monte_carlo: MonteCarloSummary;
   readonly notes: string[];
+}
+
+export interface MonteCarloSummary {
+  /** Draws made (valid and excluded). */
+  readonly draws_made: number;
+  /** fixed: --fixed-draws; settled: the adaptive rule stopped; maximum: it reached --draws unsettled. */
+  readonly stop: DrawStop;
+  /** The largest Monte Carlo error over the compared IMFs of the median log10 M⋆ and log10 ε_req, dex. */
+  readonly log_mstar_median_mc_error_dex: number;
+  readonly log_eps_required_median_mc_error_dex: number;
+  /** The largest chance over the compared IMFs that a verdict lies across its threshold (draw-rule.ts). */
+  readonly p_verdict_change: number;
+}
+
+function monteCarloOf(choices: AuditChoices, n: number, stop: DrawStop, results: readonly ImfResult[]): MonteCarloSummary {
+  const worst = (f: (r: ImfResult) => number): number => Math.max(...results.map(f));
+  return {
+    draws_made: n,
+    stop,
+    log_mstar_median_mc_error_dex: worst((r) => r.log_mstar_median_mc_error_dex),
+    log_eps_required_median_mc_error_dex: worst((r) => r.log_eps_required_median_mc_error_dex),
+    p_verdict_change: worst((r) => r.p_verdict_change),
+  };
 }
 
 export interface AuditContext {
@@ -89,10 +115,15 @@ export interface AuditContext {
 function drawGrid(g: GalaxyInput, d: GalaxyDraws, valid: ArrayLike<number>, grid: MassToLightTable, ref: MassToLightTable | undefined, scratch?: Scratch): { x: Float64Array; y: Float64Array; base: Float64Array } {
   const nv = valid.length;
   const vec = (name: string): Float64Array => (scratch ? scratch.f64(name, nv) : new Float64Array(nv));
-  const x = vec('grid.x');
-  const y = vec('grid.y');
-  const base = vec('grid.base');
-  for (let i = 0; i < nv; i++) {
+  const out = { x: vec('grid.x'), y: vec('grid.y'), base: vec('grid.base') };
+  fillGrid(g, d, valid, 0, nv, grid, ref, out);
+  return out;
+}
+
+/** drawGrid for the valid draws from..to − 1, into the given arrays (the earlier entries are kept). */
+function fillGrid(g: GalaxyInput, d: GalaxyDraws, valid: ArrayLike<number>, from: number, to: number, grid: MassToLightTable, ref: MassToLightTable | undefined, out: { x: Float64Array; y: Float64Array; base: Float64Array }): void {
+  const { x, y, base } = out;
+  for (let i = from; i < to; i++) {
     const k = valid[i];
     if (g.log10Mstar !== undefined) {
       const [a, b] = rescalePosition(grid, d.log10AgeMyr[k]);
@@ -106,7 +137,6 @@ function drawGrid(g: GalaxyInput, d: GalaxyDraws, valid: ArrayLike<number>, grid
       base[i] = d.log10Lnu[k];
     }
   }
-  return { x, y, base };
 }
 
 /**
@@ -181,38 +211,17 @@ function redshiftChecks(ctx: AuditContext, g: GalaxyInput, seed: number, headTab
   return out;
 }
 
-/** Ceilings (log10 f_b M_halo,q, without and with cosmic variance) at each valid draw's redshift. */
-function drawCeilings(ceil: CeilingTable, fb: number, sigmaDm: number, z: Float64Array, valid: Int32Array, scratch: Scratch): { logCeil: Float64Array; logCeilCv: Float64Array } {
-  const nv = valid.length;
-  const logCeil = scratch.f64('ceiling.log', nv);
-  const logCeilCv = scratch.f64('ceiling.logCv', nv);
-  const lfb = Math.log10(fb);
-  for (let i = 0; i < nv; i++) {
-    const zk = z[valid[i]];
-    logCeil[i] = lfb + ceil.log10HaloMassAtQuantile(zk);
-    // σ_dm is evaluated once, at the galaxy's nominal z (it changes slowly with z across the slice).
-    logCeilCv[i] = lfb + ceil.log10HaloMassAtQuantileCv(zk, sigmaDm);
-  }
-  return { logCeil, logCeilCv };
-}
-
 /** log10 f_b ΔM_h per valid draw over its star formation (undefined when z is not below the formation redshift). */
 function drawAccretion(ctx: AuditContext, g: GalaxyInput, d: GalaxyDraws, valid: Int32Array, logCeil: Float64Array, scratch: Scratch): Float64Array | undefined {
   const { halo, choices } = ctx;
   if (!(g.z < choices.formationZ)) return undefined;
   const lfb = Math.log10(halo.baryonFraction);
   const nv = valid.length;
-  const zs = scratch.f64('accretion.z', nv);
-  const ages = scratch.f64('accretion.age', nv);
   const halos = scratch.f64('accretion.halo', nv);
-  for (let i = 0; i < nv; i++) {
-    zs[i] = d.z[valid[i]];
-    ages[i] = d.log10AgeMyr[valid[i]];
-    halos[i] = logCeil[i] - lfb;
-  }
+  for (let i = 0; i < nv; i++) halos[i] = logCeil[i] - lfb;
   // ages and distances per draw from the draws' own tables (galaxy-draws.ts), not the direct integrals
   const bg = tabulatedBackground(halo.background);
-  return logAccretedBaryons(bg, makeAccretionHistory(bg), halo.baryonFraction, choices.formationZ, zs, ages, halos);
+  return logAccretedBaryonsOfDraws(bg, makeAccretionHistory(bg), halo.baryonFraction, choices.formationZ, nv, valid, d.lnOnePlusZ, d.lnAgeGyr, d.log10AgeMyr, halos, scratch.f64('accretion.out', nv));
 }
 
 function timeBudgetOf(ctx: AuditContext, g: GalaxyInput, head: ImfStatistics, acc: Float64Array | undefined, notes: string[]): TimeBudget | null {
@@ -244,26 +253,80 @@ function timeBudgetOf(ctx: AuditContext, g: GalaxyInput, head: ImfStatistics, ac
  */
 const mainScratch = makeScratch();
 
+/**
+ * The galaxy's main draws: all `draws` with fixedDraws, else block by block under the adaptive rule
+ * (draw-rule.ts) until every compared IMF's verdict and medians are settled or `draws` is reached.
+ * Fills the valid draws' indices, grid positions, bases and ceilings (reused vectors, capacity `draws`).
+ */
+function mainDraws(ctx: AuditContext, g: GalaxyInput, seed: number, imfTables: readonly MassToLightTable[], refTable: MassToLightTable | undefined, ceil: CeilingTable) {
+  const { choices, halo } = ctx;
+  const fixed = choices.fixedDraws === true;
+  const nMax = choices.draws;
+  const stream = galaxyDrawStream(g, nMax, seed, halo.background, undefined, mainScratch);
+  const d = stream.draws;
+  const validBuf = mainScratch.i32('valid', nMax);
+  const grid = { x: mainScratch.f64('grid.x', nMax), y: mainScratch.f64('grid.y', nMax), base: mainScratch.f64('grid.base', nMax) };
+  const logCeilBuf = mainScratch.f64('ceiling.log', nMax);
+  const lfb = Math.log10(halo.baryonFraction);
+  const zLook = fixed ? Infinity : normalQuantile(1 - P_CLASS_CHANGE_MAX / looksFor(nMax));
+  const looks = imfTables.map((_, j) => makeLookState(mainScratch.f64(`look.lm.${j}`, nMax), mainScratch.f64(`look.le.${j}`, nMax)));
+  const precision = drawPrecisionOf(choices);
+  let nv = 0;
+  let stop: DrawStop = fixed ? 'fixed' : 'maximum';
+  for (let n = fixed ? nMax : Math.min(FIRST_LOOK, nMax); ; n = Math.min(n + DRAW_BLOCK, nMax)) {
+    const k0 = d.n;
+    const nv0 = nv;
+    stream.extend(n);
+    for (let k = k0; k < n; k++) if (g.log10Mstar !== undefined || Number.isFinite(d.log10Lnu[k])) validBuf[nv++] = k;
+    fillGrid(g, d, validBuf, nv0, nv, imfTables[0], refTable, grid);
+    ceil.log10HaloMassesAt(d.z, validBuf.subarray(nv0, nv), nv - nv0, undefined, lfb, logCeilBuf.subarray(nv0, nv));
+    if (fixed || n >= nMax) break;
+    // a look needs half the first look's draws valid; every IMF settled, both errors within the precision
+    if (nv >= FIRST_LOOK / 2) {
+      let settled = true;
+      for (let j = 0; j < imfTables.length && settled; j++) {
+        const m = medianLook(imfTables[j], grid.base, grid.x, grid.y, logCeilBuf, nv, looks[j]);
+        const dist = Math.min(Math.abs(m.logEpsMedian - Math.log10(choices.epsRef)), Math.abs(m.logEpsMedian));
+        settled = m.logMstarErrDex <= precision && m.logEpsErrDex <= precision && dist >= zLook * m.logEpsErrDex;
+      }
+      if (settled) {
+        stop = 'settled';
+        break;
+      }
+    }
+  }
+  return {
+    d,
+    stop,
+    valid: validBuf.subarray(0, nv),
+    gx: grid.x.subarray(0, nv),
+    gy: grid.y.subarray(0, nv),
+    base: grid.base.subarray(0, nv),
+    logCeil: logCeilBuf.subarray(0, nv),
+  };
+}
+
+export type DrawStop = 'fixed' | 'settled' | 'maximum';
+
 export function auditGalaxy(ctx: AuditContext, g: GalaxyInput, index: number): GalaxyAudit {
   const { choices, halo } = ctx;
   const fb = halo.baryonFraction;
-  const n = choices.draws;
   const seed = idSeed(choices.seed, g.id);
-  const d = drawGalaxy(g, n, seed, halo.background, undefined, mainScratch);
   const ceil = ctx.ceilingFor(g.survey);
   const sigmaDm = ctx.sigmaDmFor(g.survey, g.z);
   const notes: string[] = [];
-  const valid = validDraws(g, d, mainScratch);
+  const { headline, imfs } = headlineAndCompared(g, choices);
+  const tableOf = (imf: string): MassToLightTable => ctx.cache.table(imf, g.z, ctx.sfh);
+  const refTable = g.imfRef ? tableOf(g.imfRef) : undefined;
+  const { d, stop, valid, gx, gy, base, logCeil } = mainDraws(ctx, g, seed, imfs.map(tableOf), refTable, ceil);
+  const n = d.n;
   if (d.excluded) notes.push(`${d.excluded} of ${n} draws put the observed band outside the model's rest range (Lyman-α–1 μm) and were left out`);
   if (valid.length < Math.max(20, 0.01 * n)) throw new RangeError(`row ${g.row} (${g.id}): almost every redshift draw puts the band outside the model's rest range (Lyman-α–1 μm)`);
   if (g.log10Mstar !== undefined && g.zAlt !== undefined && g.log10MstarAlt === undefined) {
     notes.push('no log_mstar_alt: the mass at z_alt was rescaled by the luminosity-distance ratio, D_L(z_alt)²/D_L(z)² · (1+z)/(1+z_alt)');
   }
-  const { logCeil, logCeilCv } = drawCeilings(ceil, fb, sigmaDm, d.z, valid, mainScratch);
-  const { headline, imfs } = headlineAndCompared(g, choices);
-  const tableOf = (imf: string): MassToLightTable => ctx.cache.table(imf, g.z, ctx.sfh);
-  const refTable = g.imfRef ? tableOf(g.imfRef) : undefined;
-  const { x: gx, y: gy, base } = drawGrid(g, d, valid, tableOf(imfs[0]), refTable, mainScratch);
+  // σ_dm is evaluated once, at the galaxy's nominal z (it changes slowly with z across the slice).
+  const logCeilCv = ceil.log10HaloMassesAt(d.z, valid, valid.length, sigmaDm, Math.log10(fb), mainScratch.f64('ceiling.logCv', valid.length));
   const acc = drawAccretion(ctx, g, d, valid, logCeil, mainScratch);
   const cosmoSd = ctx.ceilingSdDexAt(g.survey, g.z);
   const shared: SharedDraws = { n: valid.length, base, gx, gy, logCeil, logCeilCv, logAccretedBaryons: acc, cosmoOffset: ceilingOffsets(choices.seed, g.id, valid.length, cosmoSd, mainScratch) };
@@ -300,7 +363,7 @@ export function auditGalaxy(ctx: AuditContext, g: GalaxyInput, index: number): G
             gy,
             headTable: tableOf(headline),
             tableOf,
-            drawsAtRedshift: (zf) => fixedRedshiftCells(ctx, g, zf, Math.min(n, 2000)),
+            drawsAtRedshift: (zf) => fixedRedshiftCells(ctx, g, zf, Math.min(choices.draws, 2000)),
           },
           [...new Set([1, choices.epsRef])],
         );
@@ -336,6 +399,7 @@ export function auditGalaxy(ctx: AuditContext, g: GalaxyInput, index: number): G
     reconcile,
     draws_used: valid.length,
     draws_excluded: d.excluded,
+    monte_carlo: monteCarloOf(choices, n, stop, imfs.map((i) => imfResults[i])),
     notes,
   };
 }

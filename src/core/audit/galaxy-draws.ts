@@ -88,6 +88,9 @@ export function tabulatedBackground(bg: Background): Background {
 export interface GalaxyDraws {
   readonly n: number;
   readonly z: Float64Array;
+  /** ln(1 + z) of each draw (the variable of the background tables), and ln t(z) [Gyr] read there. */
+  readonly lnOnePlusZ: Float64Array;
+  readonly lnAgeGyr: Float64Array;
   /** log10 of the population age (Myr) and of the rest wavelength (μm; NaN where excluded). */
   readonly log10AgeMyr: Float64Array;
   readonly log10LambdaRestUm: Float64Array;
@@ -99,15 +102,37 @@ export interface GalaxyDraws {
   readonly excluded: number;
 }
 
+/** Draws made in steps: extend(n) adds draws up to n in all, continuing the same random stream. */
+export interface GalaxyDrawStream {
+  /** The draws made so far (n and excluded grow with each extend; the arrays hold `capacity` values). */
+  readonly draws: GalaxyDraws;
+  readonly capacity: number;
+  extend(n: number): void;
+}
+
 /**
  * @param scratch where the draws' arrays come from (reused between calls; valid until the next call
  *   with the same scratch); fresh arrays when absent.
  */
 export function drawGalaxy(g: GalaxyInput, n: number, seed: number, bgFull: Background, zOverride?: { z: number; alt: boolean }, scratch?: Scratch): GalaxyDraws {
+  const s = galaxyDrawStream(g, n, seed, bgFull, zOverride, scratch);
+  s.extend(n);
+  return s.draws;
+}
+
+/**
+ * The draws of drawGalaxy, made block by block: the first m draws are the same whatever the blocks
+ * (one stream, the same deviates in the same order per draw), so a run that stops after m draws has
+ * exactly the first m draws of a longer run.
+ * @param capacity the most draws extend may reach.
+ */
+export function galaxyDrawStream(g: GalaxyInput, capacity: number, seed: number, bgFull: Background, zOverride?: { z: number; alt: boolean }, scratch?: Scratch): GalaxyDrawStream {
   const rnd = makeRandom(seed);
   const bg = fastBackground(bgFull);
-  const vec = (name: string): Float64Array => (scratch ? scratch.f64(name, n) : new Float64Array(n));
+  const vec = (name: string): Float64Array => (scratch ? scratch.f64(name, capacity) : new Float64Array(capacity));
   const z = vec('draws.z');
+  const lnZ1 = vec('draws.x');
+  const lnT = vec('draws.lnAge');
   const lL = vec('draws.lnu');
   const lM = vec('draws.mass');
   const lAge = vec('draws.age');
@@ -119,59 +144,68 @@ export function drawGalaxy(g: GalaxyInput, n: number, seed: number, bgFull: Back
   const mApp = g.mAB ?? (g.muv !== undefined ? apparentFromAbsolute(g.muv, bg.luminosityDistanceMpc(g.z), g.z) : Number.NaN);
   const dl0 = bg.luminosityDistanceMpc(g.z);
   const lObs = Math.log10(lambdaObs);
-  let excluded = 0;
   const needAlt = g.zAlt !== undefined && g.pAlt > 0;
   const needZ = sLo > 0 || sHi > 0 || needAlt;
   const needMag = g.log10Mstar === undefined && g.magErr > 0;
   const needBeta = g.log10Mstar === undefined && g.beta !== undefined && g.betaErr > 0;
   const needMass = g.log10Mstar !== undefined && g.log10MstarErr > 0;
   const l0 = Math.log10(ML_AGE_MIN_MYR);
-  for (let k = 0; k < n; k++) {
-    // Only the deviates this row needs are drawn, always in the same order, so the main run and the
-    // fixed-redshift checks of one galaxy share their random numbers (common random numbers).
-    const uAlt = needAlt ? rnd.uniform() : 1;
-    const gz = needZ ? rnd.normal() : 0;
-    const uAge = rnd.uniform();
-    const gMag = needMag ? rnd.normal() : 0;
-    const gBeta = needBeta ? rnd.normal() : 0;
-    const gMass = needMass ? rnd.normal() : 0;
-    let zk: number;
-    let isAlt: boolean;
-    if (zOverride) {
-      zk = zOverride.z;
-      isAlt = zOverride.alt;
-    } else {
-      isAlt = g.zAlt !== undefined && uAlt < g.pAlt;
-      if (isAlt) zk = g.zAlt! + gz * fracWidth * (1 + g.zAlt!);
-      else zk = g.z + gz * (gz < 0 ? sLo : sHi);
-      zk = Math.max(zk, 0.05);
-    }
-    z[k] = zk;
-    const x = Math.log1p(zk);
-    const log10TMax = bg.lnAgeAt(x) / Math.LN10 + 3; // Myr
-    const la = l0 + uAge * (log10TMax - l0);
-    lAge[k] = la;
-    if (g.log10Mstar !== undefined) {
-      let m = g.log10Mstar + gMass * g.log10MstarErr;
-      if (isAlt && g.log10MstarAlt !== undefined) m = g.log10MstarAlt + gMass * g.log10MstarErr;
-      else if (zk !== g.z) m += (2 * (bg.lnDlAt(x) - Math.log(dl0)) - (x - Math.log1p(g.z))) / Math.LN10;
-      lM[k] = m;
-      lL[k] = Number.NaN;
-      lLam[k] = Number.NaN;
-    } else {
-      const rest = lambdaObs / (1 + zk);
-      lM[k] = Number.NaN;
-      if (rest < LYMAN_ALPHA_UM || rest > MODEL_LAMBDA_MAX_UM) {
+  const draws = { n: 0, z, lnOnePlusZ: lnZ1, lnAgeGyr: lnT, log10AgeMyr: lAge, log10LambdaRestUm: lLam, log10Lnu: lL, log10MassRef: lM, excluded: 0 };
+  const extend = (n: number): void => {
+    if (n > capacity) throw new RangeError(`draws: ${n} asked for, room for ${capacity}`);
+    let excluded = 0;
+    for (let k = draws.n; k < n; k++) {
+      // Only the deviates this row needs are drawn, always in the same order, so the main run and the
+      // fixed-redshift checks of one galaxy share their random numbers (common random numbers).
+      const uAlt = needAlt ? rnd.uniform() : 1;
+      const gz = needZ ? rnd.normal() : 0;
+      const uAge = rnd.uniform();
+      const gMag = needMag ? rnd.normal() : 0;
+      const gBeta = needBeta ? rnd.normal() : 0;
+      const gMass = needMass ? rnd.normal() : 0;
+      let zk: number;
+      let isAlt: boolean;
+      if (zOverride) {
+        zk = zOverride.z;
+        isAlt = zOverride.alt;
+      } else {
+        isAlt = g.zAlt !== undefined && uAlt < g.pAlt;
+        if (isAlt) zk = g.zAlt! + gz * fracWidth * (1 + g.zAlt!);
+        else zk = g.z + gz * (gz < 0 ? sLo : sHi);
+        zk = Math.max(zk, 0.05);
+      }
+      z[k] = zk;
+      const x = Math.log1p(zk);
+      lnZ1[k] = x;
+      const lt = bg.lnAgeAt(x);
+      lnT[k] = lt;
+      const log10TMax = lt / Math.LN10 + 3; // Myr
+      const la = l0 + uAge * (log10TMax - l0);
+      lAge[k] = la;
+      if (g.log10Mstar !== undefined) {
+        let m = g.log10Mstar + gMass * g.log10MstarErr;
+        if (isAlt && g.log10MstarAlt !== undefined) m = g.log10MstarAlt + gMass * g.log10MstarErr;
+        else if (zk !== g.z) m += (2 * (bg.lnDlAt(x) - Math.log(dl0)) - (x - Math.log1p(g.z))) / Math.LN10;
+        lM[k] = m;
         lL[k] = Number.NaN;
         lLam[k] = Number.NaN;
-        excluded++;
-        continue;
+      } else {
+        const rest = lambdaObs / (1 + zk);
+        lM[k] = Number.NaN;
+        if (rest < LYMAN_ALPHA_UM || rest > MODEL_LAMBDA_MAX_UM) {
+          lL[k] = Number.NaN;
+          lLam[k] = Number.NaN;
+          excluded++;
+          continue;
+        }
+        let l = log10LnuFromApparent(mApp + gMag * g.magErr, bg.lnDlAt(x), x);
+        if (g.beta !== undefined) l += 0.4 * attenuationFromBeta(g.beta + gBeta * g.betaErr, rest);
+        lL[k] = l;
+        lLam[k] = lObs - x / Math.LN10;
       }
-      let l = log10LnuFromApparent(mApp + gMag * g.magErr, bg.lnDlAt(x), x);
-      if (g.beta !== undefined) l += 0.4 * attenuationFromBeta(g.beta + gBeta * g.betaErr, rest);
-      lL[k] = l;
-      lLam[k] = lObs - x / Math.LN10;
     }
-  }
-  return { n, z, log10AgeMyr: lAge, log10LambdaRestUm: lLam, log10Lnu: lL, log10MassRef: lM, excluded };
+    draws.n = Math.max(draws.n, n);
+    draws.excluded += excluded;
+  };
+  return { draws, capacity, extend };
 }

@@ -1,7 +1,8 @@
 import { quantilesByBuckets } from '../numeric/select.js';
 import type { HaloModel } from '../halos/halo-model.js';
 import type { MassToLightTable } from '../stars/mass-to-light.js';
-import { eddingtonFirstOrderShiftDex, eddingtonPosterior } from './eddington.js';
+import { eddingtonFirstOrderShiftDex, eddingtonPosterior, type LnPrior } from './eddington.js';
+import { medianErrorQuantiles, pClassChange } from './draw-rule.js';
 import { verdictFor, type Verdict } from './verdict.js';
 
 export interface ImfResult {
@@ -27,6 +28,11 @@ export interface ImfResult {
   /** Time budget (absent when star formation has no time before z): median of mass formed / baryons accreted, and P(ratio > 1). */
   readonly time_budget_ratio_median?: number;
   readonly p_time_budget_over?: number;
+  /** Monte Carlo errors of the medians of log10 M⋆ and log10 ε_req, dex (draw-rule.ts). */
+  readonly log_mstar_median_mc_error_dex: number;
+  readonly log_eps_required_median_mc_error_dex: number;
+  /** The chance that the median ε_req's verdict lies across its nearest threshold, from that error (draw-rule.ts). */
+  readonly p_verdict_change: number;
 }
 
 /** Per-draw inputs shared by every IMF (valid draws only; logs are log10). */
@@ -64,55 +70,87 @@ export interface ImfStatistics {
  * The ln prior of the exact Eddington correction: dn/dlog M_h (∝ dn/dlnM) at the host mass
  * M_h = 10^x/(f_b ε), −∞ outside the σ table. ε = the median ε_req clamped to [ε_ref, 1].
  */
-function hostPrior(e: EddingtonInputs, eps: number): (x: number) => number {
+function hostPrior(e: EddingtonInputs, eps: number): LnPrior {
   const lnDn = lnMassFunctionAt(e);
   const lfe = Math.log10(e.halo.baryonFraction * eps);
-  return (x) => lnDn(x - lfe);
+  const f = (x: number): number => lnDn(x - lfe);
+  return Object.assign(f, { onGrid: (x0: number, h: number, n: number, out: Float64Array) => lnDn.onGrid(x0, h, n, out, lfe) });
 }
 
 /** Node spacing of the per-galaxy table of ln dn/dlnM, dex. */
 const PRIOR_STEP_DEX = 0.0025;
+
+type LnMassFunction = ((lh: number) => number) & {
+  /** out[i] = f(x0 + i h − shift), the same values as f, the nodes filled first. */
+  readonly onGrid: (x0: number, h: number, n: number, out: Float64Array, shift: number) => void;
+};
 
 /**
  * ln dn/dlnM(10^lh, z) at the galaxy's redshift, −∞ outside the σ table: the halo model's own values on
  * nodes 0.0025 dex apart (computed on first use, so a galaxy evaluates the mass function at a few hundred
  * masses instead of at every point of every posterior grid), read with 4-point Lagrange interpolation
  * (error ≈ (3/128) h⁴ |f⁗|, below 1e-12 in the posterior median here; common practice, no source). Linear in the
- * first and last node interval. One table per EddingtonInputs object, i.e. per galaxy.
+ * first and last node interval. One table per EddingtonInputs object, i.e. per galaxy: the last one is kept,
+ * in buffers reused from galaxy to galaxy (a galaxy's IMFs are done one after another).
  */
-const priorCache = new WeakMap<EddingtonInputs, (lh: number) => number>();
-function lnMassFunctionAt(e: EddingtonInputs): (lh: number) => number {
-  let f = priorCache.get(e);
-  if (f) return f;
+let priorFor: { e: EddingtonInputs; f: LnMassFunction } | undefined;
+/** Node values and the generation that filled each (a node is set when its stamp is the current generation), reused from galaxy to galaxy. */
+let nodeBuf = new Float64Array(0);
+let nodeStamp = new Int32Array(0);
+let generation = 0;
+function lnMassFunctionAt(e: EddingtonInputs): LnMassFunction {
+  if (priorFor && priorFor.e === e) return priorFor.f;
   const lm = e.halo.table.log10M;
   const lo = lm[0];
   const hi = lm[lm.length - 1];
   const nNodes = Math.floor((hi - lo) / PRIOR_STEP_DEX) + 1;
-  const nodes = new Float64Array(nNodes).fill(Number.NaN);
+  if (nodeBuf.length < nNodes) {
+    nodeBuf = new Float64Array(nNodes);
+    nodeStamp = new Int32Array(nNodes);
+  }
+  const nodes = nodeBuf;
+  const stamp = nodeStamp;
+  const gen = ++generation;
   const node = (i: number): number => {
-    let v = nodes[i];
-    if (v !== v) {
+    if (stamp[i] !== gen) {
       // the end nodes sit just inside the table so that the mass function is defined there
       const lh = Math.min(Math.max(lo + i * PRIOR_STEP_DEX, lo + 1e-9), hi - 1e-9);
-      v = Math.log(e.halo.dndlnM(10 ** lh, e.z));
-      nodes[i] = v;
+      nodes[i] = Math.log(e.halo.dndlnM(10 ** lh, e.z));
+      stamp[i] = gen;
     }
-    return v;
+    return nodes[i];
   };
-  f = (lh) => {
+  /** The Lagrange read at lh, with the nodes it uses already filled (nodes[] read directly). */
+  const read = (lh: number): number => {
     if (!(lh > lo && lh < hi)) return Number.NEGATIVE_INFINITY;
     const t = (lh - lo) / PRIOR_STEP_DEX;
     const i = Math.min(Math.floor(t), nNodes - 2);
     const u = t - i;
-    if (i < 1 || i > nNodes - 3) return (1 - u) * node(i) + u * node(i + 1);
-    const a = node(i - 1);
-    const b = node(i);
-    const c = node(i + 1);
-    const d = node(i + 2);
+    if (i < 1 || i > nNodes - 3) return (1 - u) * nodes[i] + u * nodes[i + 1];
+    const a = nodes[i - 1];
+    const b = nodes[i];
+    const c = nodes[i + 1];
+    const d = nodes[i + 2];
     // Lagrange weights on the nodes −1, 0, 1, 2 at u ∈ [0, 1)
     return (-u * (u - 1) * (u - 2) * a) / 6 + ((u + 1) * (u - 1) * (u - 2) * b) / 2 - ((u + 1) * u * (u - 2) * c) / 2 + ((u + 1) * u * (u - 1) * d) / 6;
   };
-  priorCache.set(e, f);
+  /** Fills the nodes that read(lh) uses for lh in [a, b]. */
+  const fill = (a: number, b: number): void => {
+    const ia = Math.max(Math.floor((Math.max(a, lo) - lo) / PRIOR_STEP_DEX) - 1, 0);
+    const ib = Math.min(Math.floor((Math.min(b, hi) - lo) / PRIOR_STEP_DEX) + 2, nNodes - 1);
+    for (let i = ia; i <= ib; i++) node(i);
+  };
+  const one = (lh: number): number => {
+    if (lh > lo && lh < hi) fill(lh, lh);
+    return read(lh);
+  };
+  const f = Object.assign(one, {
+    onGrid: (x0: number, h: number, n: number, out: Float64Array, shift: number) => {
+      fill(x0 - shift, x0 + (n - 1) * h - shift);
+      for (let i = 0; i < n; i++) out[i] = read(x0 + i * h - shift);
+    },
+  });
+  priorFor = { e, f };
   return f;
 }
 
@@ -184,6 +222,21 @@ export function imfStatistics(tab: MassToLightTable, d: SharedDraws, ed: Eddingt
   const S = tab.logSurv;
   const nLam = tab.nLam;
   const { cell, ageIndex, tx: txs, ty: tys } = w;
+  // ranges of the vectors, kept in the same pass (the quantiles then skip theirs)
+  let vMin = Infinity;
+  let vMax = -Infinity;
+  let eMin = Infinity;
+  let eMax = -Infinity;
+  let cMin = Infinity;
+  let cMax = -Infinity;
+  let rMin = Infinity;
+  let rMax = -Infinity;
+  let fMin = Infinity;
+  let fMax = -Infinity;
+  const base = d.base;
+  const logCeil = d.logCeil;
+  const logCeilCv = d.logCeilCv;
+  const cosmo = d.cosmoOffset;
   for (let i = 0; i < nv; i++) {
     // the table's own bilinear rule (MassToLightTable.logMassToLightAt), term for term, at the shared cell
     const c = cell[i];
@@ -192,33 +245,48 @@ export function imfStatistics(tab: MassToLightTable, d: SharedDraws, ed: Eddingt
     const ty = tys[i];
     const lnu = (1 - tx) * ((1 - ty) * L[c] + ty * L[c + 1]) + tx * ((1 - ty) * L[c + nLam] + ty * L[c + nLam + 1]);
     const surv = (1 - tx) * S[a] + tx * S[a + 1];
-    const v = d.base[i] + (surv - lnu);
+    const v = base[i] + (surv - lnu);
     lm[i] = v;
-    const e = v - d.logCeil[i];
+    if (v < vMin) vMin = v;
+    if (v > vMax) vMax = v;
+    const e = v - logCeil[i];
     leps[i] = e;
-    lepsCv[i] = v - d.logCeilCv[i];
+    if (e < eMin) eMin = e;
+    if (e > eMax) eMax = e;
+    const ecv = v - logCeilCv[i];
+    lepsCv[i] = ecv;
+    if (ecv < cMin) cMin = ecv;
+    if (ecv > cMax) cMax = ecv;
     if (e > 0) over++;
-    if (e > d.cosmoOffset[i]) overCosmo++;
+    if (e > cosmo[i]) overCosmo++;
     if (e > lRef) strained++;
     if (acc) {
       // log10 (1 − R) at the draw's age: the same interpolation as logSurvivingAt
       const f = v - surv;
       const r = f - acc[i];
       lratio![i] = r;
-      if (lformed) lformed[i] = f;
+      if (r < rMin) rMin = r;
+      if (r > rMax) rMax = r;
+      if (lformed) {
+        lformed[i] = f;
+        if (f < fMin) fMin = f;
+        if (f > fMax) fMax = f;
+      }
       if (r > 0) tbOver++;
     }
   }
-  const [lm16, lmMed, lm84] = quantilesByBuckets(lm, nv, [0.16, 0.5, 0.84]);
-  const [le05, leMed, le95] = quantilesByBuckets(leps, nv, [0.05, 0.5, 0.95]);
+  const [qa, , qb] = medianErrorQuantiles(nv);
+  const [lm16, lmMed, lm84, lmA, lmB] = quantilesByBuckets(lm, nv, [0.16, 0.5, 0.84, qa, qb], { min: vMin, max: vMax });
+  const [le05, leMed, le95, leA, leB] = quantilesByBuckets(leps, nv, [0.05, 0.5, 0.95, qa, qb], { min: eMin, max: eMax });
+  const leErr = 0.5 * (leB - leA);
   const med = 10 ** leMed;
-  const medCv = 10 ** quantilesByBuckets(lepsCv, nv, [0.5])[0];
+  const medCv = 10 ** quantilesByBuckets(lepsCv, nv, [0.5], { min: cMin, max: cMax })[0];
   const epsHost = Math.min(1, Math.max(med, ed.epsRef));
   const shift = eddingtonPosterior(hostPrior(ed, epsHost), lmMed, ed.sigmaDex).shiftMedianDex;
   const mHost = Math.min(Math.max(10 ** lmMed / (ed.halo.baryonFraction * epsHost), 1e3), 1e18);
   const alpha = localSlope(ed.halo, mHost, ed.z);
   const debiased = med * 10 ** -shift;
-  const ratioMed = lratio ? 10 ** quantilesByBuckets(lratio, nv, [0.5])[0] : undefined;
+  const ratioMed = lratio ? 10 ** quantilesByBuckets(lratio, nv, [0.5], { min: rMin, max: rMax })[0] : undefined;
   const result: ImfResult = {
     verdict: verdictFor(med, ed.epsRef),
     log_mstar_median: lmMed,
@@ -236,11 +304,50 @@ export function imfStatistics(tab: MassToLightTable, d: SharedDraws, ed: Eddingt
     eps_required_median_cv: medCv,
     verdict_cv: verdictFor(medCv, ed.epsRef),
     ...(ratioMed !== undefined && Number.isFinite(ratioMed) ? { time_budget_ratio_median: ratioMed, p_time_budget_over: tbOver / nv } : {}),
+    log_mstar_median_mc_error_dex: 0.5 * (lmB - lmA),
+    log_eps_required_median_mc_error_dex: leErr,
+    p_verdict_change: pClassChange(leMed, leErr, ed.epsRef),
   };
   return {
     result,
     eddingtonSlopeAlpha: alpha,
     eddingtonFirstOrderDex: eddingtonFirstOrderShiftDex(alpha, ed.sigmaDex),
-    formedMassMedianMsun: lformed ? 10 ** quantilesByBuckets(lformed, nv, [0.5])[0] : undefined,
+    formedMassMedianMsun: lformed ? 10 ** quantilesByBuckets(lformed, nv, [0.5], { min: fMin, max: fMax })[0] : undefined,
   };
+}
+
+/** One IMF's vectors of the adaptive rule's looks: log10 M⋆ and log10 ε_req of the first n valid draws, with their ranges. */
+export interface LookState {
+  n: number;
+  readonly lm: Float64Array;
+  readonly le: Float64Array;
+  range: { lmMin: number; lmMax: number; leMin: number; leMax: number };
+}
+
+export function makeLookState(lm: Float64Array, le: Float64Array): LookState {
+  return { n: 0, lm, le, range: { lmMin: Infinity, lmMax: -Infinity, leMin: Infinity, leMax: -Infinity } };
+}
+
+/**
+ * The adaptive rule's look at one IMF (draw-rule.ts): log10 M⋆ and log10 ε_req of the valid draws,
+ * extended from look.n to n (the earlier draws are already there), then the two medians and their
+ * Monte Carlo errors over all n.
+ */
+export function medianLook(tab: MassToLightTable, base: Float64Array, gx: Float64Array, gy: Float64Array, logCeil: Float64Array, n: number, look: LookState): { logMstarErrDex: number; logEpsMedian: number; logEpsErrDex: number } {
+  const { lm, le, range: r } = look;
+  for (let i = look.n; i < n; i++) {
+    const v = base[i] + tab.logMassToLightAt(gx[i], gy[i]);
+    const e = v - logCeil[i];
+    lm[i] = v;
+    le[i] = e;
+    if (v < r.lmMin) r.lmMin = v;
+    if (v > r.lmMax) r.lmMax = v;
+    if (e < r.leMin) r.leMin = e;
+    if (e > r.leMax) r.leMax = e;
+  }
+  look.n = n;
+  const qs = medianErrorQuantiles(n);
+  const [ma, , mb] = quantilesByBuckets(lm, n, qs, { min: r.lmMin, max: r.lmMax });
+  const [ea, em, eb] = quantilesByBuckets(le, n, qs, { min: r.leMin, max: r.leMax });
+  return { logMstarErrDex: 0.5 * (mb - ma), logEpsMedian: em, logEpsErrDex: 0.5 * (eb - ea) };
 }

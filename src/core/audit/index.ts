@@ -4,7 +4,7 @@ export { validateRecord, recordIn, TOOL_NAME, TOOL_VERSION, RECORD_FORMAT, READA
 export type { AuditRecord } from './record.js';
 export type { AuditChoices } from './choices.js';
 export { DEFAULT_IMFS, RESCALE_REST_UM, validateChoices, normalizeChoices } from './choices.js';
-export { CHOICE_SPECS, SURVEY_SPECS, DELTA_C_SPEC, Z_BIN_SPEC, FULL_SKY_ARCMIN2, specByKey, specProblem, rangeText } from './choice-specs.js';
+export { CHOICE_SPECS, CHOICE_SWITCHES, DRAW_RULE_SPECS, SURVEY_SPECS, DELTA_C_SPEC, Z_BIN_SPEC, FULL_SKY_ARCMIN2, specByKey, specProblem, rangeText } from './choice-specs.js';
 export type { ChoiceSpec, NumericChoiceKey, SurveyNumberKey } from './choice-specs.js';
 export { checkChoices, checkSurvey, problemText, SCHEMA_LIMITS } from './choice-schema.js';
 export type { ChoiceProblem } from './choice-schema.js';
@@ -46,3 +46,4 @@ export type { Reconciliation } from './reconcile.js';
 export { auditCovariance, makeCeilingUncertainty } from './ceiling-uncertainty.js';
 export { CITATIONS, citeInText, referencesFor } from './citations.js';
 export type { Citation } from './citations.js';
+export { DRAW_BLOCK, FIRST_LOOK, P_CLASS_CHANGE_MAX, drawPrecisionOf, drawRuleText } from './draw-rule.js';

@@ -17,7 +17,7 @@ export interface AuditRecord {
 }
 
 const RECORD_KEYS = ['tool', 'version', 'format', 'sample_csv', 'choices'];
-const CHOICE_KEYS = ['cosmology', 'massFunction', 'transfer', 'deltaC', 'growth', 'cosmologyCovariance', 'imfs', 'headlineImf', 'sfh', 'metallicity', 'epsRef', 'quantile', 'draws', 'seed', 'sliceDz', 'formationZ', 'survey', 'surveys', 'zBins'];
+const CHOICE_KEYS = ['cosmology', 'massFunction', 'transfer', 'deltaC', 'growth', 'cosmologyCovariance', 'imfs', 'headlineImf', 'sfh', 'metallicity', 'epsRef', 'quantile', 'draws', 'fixedDraws', 'drawPrecisionDex', 'seed', 'sliceDz', 'formationZ', 'survey', 'surveys', 'zBins'];
 
 const isObject = (x: unknown): x is Record<string, unknown> => typeof x === 'object' && x !== null && !Array.isArray(x);
 

@@ -6,6 +6,7 @@ import type { AuditResult, GalaxyRow } from './run-audit.js';
 import type { BinBudget } from './sample-budget.js';
 import type { Reconciliation } from './reconcile.js';
 import { verdictFor } from './verdict.js';
+import { drawRuleText } from './draw-rule.js';
 
 /** How the report names a method: our citation table's text as it is; anything user-given (a custom IMF) escaped. */
 const citeSafe = (name: string): string => (CITATIONS[name] ? CITATIONS[name].inText : md(citeInText(name)));
@@ -18,7 +19,7 @@ export interface CsvLayout {
   readonly inputColumns: readonly string[];
 }
 
-const CSV_FIXED = ['row', 'lines', 'line_end', 'id', 'status', 'errors', 'verdict', 'attribution', 'attribution_detail', 'headline_imf', 'halo_mass_at_quantile_msun', 'log_mass_cosmo_sd_dex', 'eddington_shift_dex', 'time_budget_ratio', 'time_budget_p_ratio_over_1', 'formed_mass_msun', 'accreted_baryons_msun'];
+const CSV_FIXED = ['row', 'lines', 'line_end', 'id', 'status', 'errors', 'verdict', 'attribution', 'attribution_detail', 'headline_imf', 'halo_mass_at_quantile_msun', 'log_mass_cosmo_sd_dex', 'eddington_shift_dex', 'time_budget_ratio', 'time_budget_p_ratio_over_1', 'formed_mass_msun', 'accreted_baryons_msun', 'draws_made', 'draws_used', 'draws_stop', 'mc_error_log_mstar_median_dex', 'mc_error_log_eps_required_median_dex', 'p_verdict_change'];
 /** What it would take, for ε = 1 and ε_ref (empty for galaxies within budget). */
 const CSV_RECONCILE = ['z_max', 'imf_slope_max', 'sigma8_min', 'power_boost_min', 'area_min_arcmin2', 'expected_hosts', 'notes'] as const;
 const RECONCILE_COLUMNS = ['eps1', 'eps_ref'].flatMap((t) => CSV_RECONCILE.map((k) => `reconcile_${t}_${k}`));
@@ -60,6 +61,12 @@ export function auditCsvRow(g: GalaxyRow, l: CsvLayout): string {
     g.time_budget?.p_ratio_over_1,
     g.time_budget?.formed_mass_msun,
     g.time_budget?.accreted_baryons_msun,
+    g.monte_carlo?.draws_made,
+    g.draws_used,
+    g.monte_carlo?.stop ?? '',
+    g.monte_carlo?.log_mstar_median_mc_error_dex,
+    g.monte_carlo?.log_eps_required_median_mc_error_dex,
+    g.monte_carlo?.p_verdict_change,
   ];
   for (const target of ['eps1', 'eps_ref']) {
     const rc = (g.reconcile ?? []).find((x) => (target === 'eps1' ? x.eps === 1 : x.eps !== 1)) ?? (target === 'eps_ref' ? (g.reconcile ?? [])[0] : undefined);
@@ -192,7 +199,7 @@ export function auditMarkdown(r: AuditResult): string {
       `Ωb = ${c.cosmology.omegaB.toFixed(5)} (f_b = ${(c.cosmology.omegaB / c.cosmology.omegaM).toFixed(4)}), σ8 = ${c.cosmology.sigma8}; ` +
       `survey ${md(c.survey.name)}: ${c.survey.areaArcmin2} arcmin², ${c.survey.zMin} < z < ${c.survey.zMax}; redshift slices of Δz = ${c.sliceDz}; ` +
       `rarest-halo quantile ${c.quantile} (extreme-value statistics, ${citeInText('evs')}); ε_ref = ${c.epsRef}; SFH ${md(c.sfh)}; ` +
-      `IMFs ${c.imfs.map((i) => citeSafe(i)).join(', ')}; ${c.draws} Monte Carlo draws, seed ${c.seed}.`,
+      `IMFs ${c.imfs.map((i) => citeSafe(i)).join(', ')}; Monte Carlo draws, ${md(drawRuleText(c))}; seed ${c.seed}.`,
     '',
   );
   const fe = r.sample.file_errors;

@@ -11,9 +11,18 @@ export function selectKth(a: Float64Array, k: number, from = 0, to = a.length - 
     let x = a[lo];
     let y = a[mid];
     let z = a[hi];
-    if (x > y) [x, y] = [y, x];
-    if (y > z) [y, z] = [z, y];
-    if (x > y) [x, y] = [y, x];
+    let t: number;
+    if (x > y) {
+      t = x;
+      x = y;
+      y = t;
+    }
+    if (y > z) {
+      t = y;
+      y = z;
+      z = t;
+    }
+    if (x > y) y = x;
     const pivot = y;
     let i = lo;
     let j = hi;
@@ -62,82 +71,103 @@ export function quantilesBySelection(a: Float64Array, qs: readonly number[]): nu
   return out;
 }
 
-/** Buckets of the pre-pass; ~5 values per bucket for 20 000 draws. */
-const BUCKETS = 4096;
+/** Most buckets of the pre-pass (~5 values per bucket for 20 000 draws); fewer for shorter vectors. */
+const MAX_BUCKETS = 4096;
 let bucketOf = new Uint16Array(0);
 let gathered = new Float64Array(0);
-const counts = new Int32Array(BUCKETS + 1);
-const start = new Int32Array(BUCKETS + 1);
+const counts = new Int32Array(MAX_BUCKETS + 1);
+const start = new Int32Array(MAX_BUCKETS + 1);
+const wantedRanks: number[] = [];
+
+/** The bucket holding rank r (start[] cumulative over nb buckets). */
+function bucketOfRank(r: number, nb: number): number {
+  let lo = 0;
+  let hi = nb - 1;
+  while (lo < hi) {
+    const mid = (lo + hi) >> 1;
+    if (start[mid + 1] > r) hi = mid;
+    else lo = mid + 1;
+  }
+  return lo;
+}
 
 /**
  * The same type-7 quantiles as quantilesBySelection (bit for bit: the same order statistics and the
  * same interpolation), of the first n values of `a`, without reordering `a`, in three linear passes:
- * the range; a bucket index per value over 4096 equal buckets of [min, max] (monotone in the value, so
- * buckets hold consecutive ranks) with the count per bucket; then only the values of the buckets that
- * hold a wanted rank are gathered and the exact order statistics selected among them. Falls back to
+ * the range; a bucket index per value over equal buckets of [min, max] (n/4 of them, at most 4096;
+ * monotone in the value, so buckets hold consecutive ranks) with the count per bucket; then only the
+ * values of the buckets that hold a wanted rank are gathered and the exact order statistics selected
+ * among them. Any monotone bucketing gives the same order statistics, so `range`, when the caller
+ * already knows bounds that hold every value, skips the first pass. Falls back to
  * quantilesBySelection on a copy for short vectors and for vectors holding ±Infinity or NaN.
  */
-export function quantilesByBuckets(a: Float64Array, n: number, qs: readonly number[]): number[] {
+export function quantilesByBuckets(a: Float64Array, n: number, qs: readonly number[], range?: { readonly min: number; readonly max: number }): number[] {
   let min = Infinity;
   let max = -Infinity;
-  for (let i = 0; i < n; i++) {
-    const v = a[i];
-    if (v < min) min = v;
-    if (v > max) max = v;
+  if (range && range.min > -Infinity && range.max < Infinity) {
+    min = range.min;
+    max = range.max;
+  } else {
+    for (let i = 0; i < n; i++) {
+      const v = a[i];
+      if (v < min) min = v;
+      if (v > max) max = v;
+    }
   }
   if (n < 512 || !(min > -Infinity && max < Infinity)) return quantilesBySelection(a.slice(0, n), qs);
   if (min === max) return qs.map(() => min);
+  let nb = 64;
+  while (nb < MAX_BUCKETS && nb * 4 < n) nb *= 2;
   if (bucketOf.length < n) bucketOf = new Uint16Array(n);
-  const scale = BUCKETS / (max - min);
-  counts.fill(0);
+  const scale = nb / (max - min);
+  counts.fill(0, 0, nb + 1);
+  const top = nb - 1;
   for (let i = 0; i < n; i++) {
-    let b = ((a[i] - min) * scale) | 0;
-    if (b >= BUCKETS) b = BUCKETS - 1;
+    const v = a[i];
+    let b = ((v - min) * scale) | 0;
+    if (b > top) b = top;
+    else if (b < 0 || v !== v) b = 0;
     bucketOf[i] = b;
     counts[b]++;
   }
-  // the ranks wanted: ⌊h⌋ and, when h is fractional, ⌊h⌋ + 1
-  const ranks: number[] = [];
+  // cumulative start of each bucket
+  start[0] = 0;
+  for (let b = 0; b < nb; b++) start[b + 1] = start[b] + counts[b];
+  // the wanted buckets (those of ⌊h⌋ and, when h is fractional, ⌊h⌋ + 1), each with its write offset + 1 in counts[]
+  counts.fill(0, 0, nb + 1);
+  wantedRanks.length = 0;
   for (const q of qs) {
     const h = (n - 1) * q;
     const lo = Math.floor(h);
-    ranks.push(lo);
-    if (h !== lo && lo + 1 < n) ranks.push(lo + 1);
+    wantedRanks.push(lo);
+    if (h !== lo && lo + 1 < n) wantedRanks.push(lo + 1);
   }
-  // cumulative start of each bucket; slot of each wanted bucket in the gathered array
-  start.fill(0);
-  for (let b = 0; b < BUCKETS; b++) start[b + 1] = start[b] + counts[b];
-  const bucketOfRank = (r: number): number => {
-    let lo = 0;
-    let hi = BUCKETS - 1;
-    while (lo < hi) {
-      const mid = (lo + hi) >> 1;
-      if (start[mid + 1] > r) hi = mid;
-      else lo = mid + 1;
-    }
-    return lo;
-  };
-  const wanted = [...new Set(ranks.map(bucketOfRank))];
   let total = 0;
-  // counts[b] becomes the write position of a wanted bucket (+1, so 0 means not wanted)
-  const offsetOf = new Map<number, number>();
-  for (const b of wanted) {
-    offsetOf.set(b, total);
-    total += counts[b];
+  for (const r of wantedRanks) {
+    const b = bucketOfRank(r, nb);
+    if (counts[b] === 0) {
+      counts[b] = total + 1;
+      total += start[b + 1] - start[b];
+    }
   }
-  counts.fill(0);
-  for (const b of wanted) counts[b] = offsetOf.get(b)! + 1;
   if (gathered.length < total) gathered = new Float64Array(Math.max(total, 1024));
+  // offsets of the wanted buckets before the gather moves them on
+  const offsets = new Map<number, number>();
+  for (const r of wantedRanks) {
+    const b = bucketOfRank(r, nb);
+    if (!offsets.has(b)) offsets.set(b, counts[b] - 1);
+  }
   for (let i = 0; i < n; i++) {
-    const c = counts[bucketOf[i]];
+    const b = bucketOf[i];
+    const c = counts[b];
     if (c !== 0) {
       gathered[c - 1] = a[i];
-      counts[bucketOf[i]] = c + 1;
+      counts[b] = c + 1;
     }
   }
   const orderStat = (r: number): number => {
-    const b = bucketOfRank(r);
-    const off = offsetOf.get(b)!;
+    const b = bucketOfRank(r, nb);
+    const off = offsets.get(b)!;
     const size = start[b + 1] - start[b];
     return selectKth(gathered, off + (r - start[b]), off, off + size - 1);
   };

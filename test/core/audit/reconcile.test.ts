@@ -7,10 +7,13 @@ import { DEFAULT_CHOICES } from '../../../src/ui/default-choices.js';
 // Self-consistency of "what it would take": re-running the audit with the one change that a
 // reconciliation reports must bring the headline median ε_req to the target ε. Invented galaxies.
 const DRAWS = 4000;
+// Fixed draws: the re-runs must use the same draws as the audit they check (under the adaptive rule a
+// changed ceiling can change where a galaxy stops, and so its draws).
 const choices = (over: Partial<AuditChoices> = {}): AuditChoices => ({
   ...DEFAULT_CHOICES,
   imfs: ['salpeter', 'chabrier'],
   draws: DRAWS,
+  fixedDraws: true,
   seed: 5,
   survey: { name: 'test-field', areaArcmin2: 40, zMin: 9.5, zMax: 10.5 },
   ...over,

@@ -1,0 +1,149 @@
+import { describe, expect, it } from 'vitest';
+import { checkChoices, prepareAudit, runAudit, validateRecord, type AuditChoices } from '../../../src/core/audit/index.js';
+import { DRAW_BLOCK, looksFor, normalCdf, normalQuantile, P_CLASS_CHANGE_MAX } from '../../../src/core/audit/draw-rule.js';
+import { DEFAULT_CHOICES } from '../../../src/ui/default-choices.js';
+import erf from '@stdlib/math-base-special-erf';
+
+// The adaptive Monte Carlo rule (draw-rule.ts) against the fixed-draw audit it shortens, on invented
+// galaxies. The references are the fixed-draw runs themselves and the scatter over seeds.
+const choices = (over: Partial<AuditChoices> = {}): AuditChoices => ({
+  ...DEFAULT_CHOICES,
+  imfs: ['salpeter', 'chabrier'],
+  draws: 20000,
+  seed: 3,
+  survey: { name: 'test-field', areaArcmin2: 40, zMin: 8.5, zMax: 9.5 },
+  ...over,
+});
+
+// Reported masses placed around both thresholds (ε_ref = 0.3 and 1) of the headline IMF at z = 9: the
+// stellar ceiling f_b M_q(9) from the audit's own ceiling table, offsets from −0.04 to +0.04 dex.
+const HEADER = 'id,z,z_lo,z_hi,log_mstar,imf_ref,log_mstar_err';
+const probe = prepareAudit(`${HEADER}\nP-0,9,8.9,9.1,9,salpeter,0.15\n`, choices());
+const logCeil9 = Math.log10(probe.ctx.halo.baryonFraction) + probe.ctx.ceilingFor(undefined).log10HaloMassAtQuantile(9);
+const OFFSETS = [-0.04, -0.02, -0.01, -0.005, 0, 0.005, 0.01, 0.02, 0.04];
+const rows: string[] = [];
+for (const [t, eps] of [['R', 0.3], ['O', 1]] as const) {
+  OFFSETS.forEach((d, i) => rows.push(`${t}-${i},9,8.9,9.1,${(logCeil9 + Math.log10(eps) + d).toFixed(4)},salpeter,0.15`));
+}
+const NEAR = `${HEADER}\n${rows.join('\n')}\n`;
+const fixed = runAudit(NEAR, choices({ fixedDraws: true }));
+const adaptive = runAudit(NEAR, choices());
+
+describe('adaptive draws near the verdict thresholds', () => {
+  it('the sample does sit on the thresholds: some fixed-draw verdicts are unsettled (P(class change) ≥ 1e-3), most are settled', () => {
+    const p = fixed.galaxies.flatMap((g) => Object.values(g.imf!).map((r) => r.p_verdict_change));
+    expect(p.some((x) => x >= P_CLASS_CHANGE_MAX)).toBe(true);
+    expect(p.filter((x) => x < P_CLASS_CHANGE_MAX).length).toBeGreaterThan(p.length / 2);
+  });
+  it('wherever the fixed run’s own verdict is settled, the adaptive verdict is the same (every IMF)', () => {
+    let compared = 0;
+    fixed.galaxies.forEach((g, i) => {
+      for (const [imf, r] of Object.entries(g.imf!)) {
+        if (r.p_verdict_change >= P_CLASS_CHANGE_MAX) continue;
+        compared++;
+        expect(adaptive.galaxies[i].imf![imf].verdict, `${g.id} ${imf}`).toBe(r.verdict);
+      }
+    });
+    expect(compared).toBeGreaterThan(10);
+  });
+  it('galaxies whose verdict the fixed run cannot settle run to the maximum; the far ones stop early', () => {
+    fixed.galaxies.forEach((g, i) => {
+      const a = adaptive.galaxies[i].monte_carlo!;
+      const unsettled = Object.values(g.imf!).some((r) => r.p_verdict_change >= P_CLASS_CHANGE_MAX);
+      if (unsettled) expect(a.stop, g.id).toBe('maximum');
+      if (a.stop === 'settled') {
+        // what the rule promises at its stop
+        expect(a.p_verdict_change).toBeLessThan(P_CLASS_CHANGE_MAX / looksFor(20000));
+        expect(a.log_mstar_median_mc_error_dex).toBeLessThanOrEqual(0.03);
+        expect(a.log_eps_required_median_mc_error_dex).toBeLessThanOrEqual(0.03);
+      }
+    });
+    const made = adaptive.galaxies.map((g) => g.monte_carlo!.draws_made);
+    expect(Math.min(...made)).toBeLessThan(5000);
+    expect(Math.max(...made)).toBe(20000);
+  });
+  it('an adaptive galaxy that stopped at N draws has exactly the statistics of a fixed run of N draws (blocks are one stream)', () => {
+    const stopped = adaptive.galaxies.filter((g) => g.monte_carlo!.stop === 'settled').slice(0, 3);
+    expect(stopped.length).toBeGreaterThan(0);
+    for (const g of stopped) {
+      const row = rows.find((r) => r.startsWith(`${g.id},`))!;
+      const f = runAudit(`${HEADER}\n${row}\n`, choices({ fixedDraws: true, draws: g.monte_carlo!.draws_made })).galaxies[0];
+      expect(f.imf).toEqual(g.imf);
+      expect(f.draws_used).toBe(g.draws_used);
+    }
+  });
+});
+
+describe('the reported Monte Carlo error is what it says', () => {
+  // A light row and a reported mass; fixed draws of one block, 80 seeds. The spread of the 80 medians
+  // estimates the true MC error to ±8% (1/√(2·79)); the reported error (an order-statistic estimate,
+  // averaged over the 80 runs) must agree within 25% (≈ 3σ of that spread).
+  const csv = 'id,z,z_lo,z_hi,muv,mag_err,beta,log_mstar,imf_ref,log_mstar_err\nL-1,9,8.8,9.25,-20.5,0.1,-2.0,,,\nM-1,9,8.9,9.1,,,,9.6,salpeter,0.15\n';
+  const seeds = Array.from({ length: 80 }, (_, i) => i + 1);
+  const runs = seeds.map((seed) => runAudit(csv, choices({ seed, fixedDraws: true, draws: DRAW_BLOCK * 2 })));
+  for (const [gi, field] of [[0, 'log_mstar'], [1, 'log_mstar'], [0, 'log_eps'], [1, 'log_eps']] as const) {
+    it(`galaxy ${gi === 0 ? 'L-1' : 'M-1'}: ${field} median, reported error against the scatter over seeds`, () => {
+      const med = runs.map((r) => {
+        const x = r.galaxies[gi].imf!.salpeter;
+        return field === 'log_mstar' ? x.log_mstar_median : Math.log10(x.eps_required_median);
+      });
+      const mean = med.reduce((a, b) => a + b, 0) / med.length;
+      const sd = Math.sqrt(med.reduce((a, b) => a + (b - mean) ** 2, 0) / (med.length - 1));
+      const rep = runs.map((r) => {
+        const x = r.galaxies[gi].imf!.salpeter;
+        return field === 'log_mstar' ? x.log_mstar_median_mc_error_dex : x.log_eps_required_median_mc_error_dex;
+      });
+      const meanRep = rep.reduce((a, b) => a + b, 0) / rep.length;
+      expect(meanRep / sd).toBeGreaterThan(0.75);
+      expect(meanRep / sd).toBeLessThan(1.25);
+    });
+  }
+  it('under the adaptive rule the medians scatter over seeds by no more than the precision asked for (0.03 dex, +25% for the spread of 40 seeds)', () => {
+    const med = seeds.slice(0, 40).map((seed) => runAudit(csv, choices({ seed })).galaxies[0].imf!.salpeter.log_mstar_median);
+    const mean = med.reduce((a, b) => a + b, 0) / med.length;
+    const sd = Math.sqrt(med.reduce((a, b) => a + (b - mean) ** 2, 0) / (med.length - 1));
+    expect(sd).toBeLessThan(0.03 * 1.25);
+    expect(sd).toBeGreaterThan(0); // not a fixed answer
+  });
+});
+
+describe('reproducible from seed + id and the record', () => {
+  it('the same choices give the same numbers; order and neighbours do not matter', () => {
+    const again = runAudit(NEAR, choices());
+    expect(again.galaxies.map((g) => [g.imf, g.monte_carlo])).toEqual(adaptive.galaxies.map((g) => [g.imf, g.monte_carlo]));
+    const reversed = runAudit(`${HEADER}\n${[...rows].reverse().join('\n')}\n`, choices());
+    const byId = new Map(reversed.galaxies.map((g) => [g.id, g]));
+    for (const g of adaptive.galaxies) expect(byId.get(g.id)!.monte_carlo).toEqual(g.monte_carlo);
+  });
+  it('a record keeps the rule (fixedDraws, drawPrecisionDex) and re-runs to the same numbers', () => {
+    const c = choices({ drawPrecisionDex: 0.05, fixedDraws: false });
+    const r1 = runAudit(NEAR, c);
+    const rec = validateRecord(JSON.parse(JSON.stringify({ record: r1.record })));
+    expect(rec.choices.fixedDraws).toBe(false);
+    expect(rec.choices.drawPrecisionDex).toBe(0.05);
+    const r2 = runAudit(rec.sample_csv, rec.choices);
+    expect(r2.galaxies.map((g) => [g.imf, g.monte_carlo])).toEqual(r1.galaxies.map((g) => [g.imf, g.monte_carlo]));
+    // a looser precision stops no later
+    r1.galaxies.forEach((g, i) => expect(g.monte_carlo!.draws_made).toBeLessThanOrEqual(adaptive.galaxies[i].monte_carlo!.draws_made));
+  });
+  it('fixed draws: every galaxy gets exactly `draws`, reported as such', () => {
+    for (const g of fixed.galaxies) expect(g.monte_carlo).toMatchObject({ draws_made: 20000, stop: 'fixed' });
+  });
+  it('the choices are checked: fixedDraws must be true or false, drawPrecisionDex in its range', () => {
+    expect(checkChoices({ ...choices(), fixedDraws: 'yes' })).toEqual([{ field: 'fixedDraws', reason: 'must be true or false (got "yes")' }]);
+    expect(checkChoices({ ...choices(), drawPrecisionDex: 0 })[0].field).toBe('drawPrecisionDex');
+    expect(checkChoices({ ...choices(), drawPrecisionDex: 0.01, fixedDraws: true })).toEqual([]);
+  });
+});
+
+describe('the rule’s normal quantile and CDF', () => {
+  it('Φ against @stdlib erf (a general-purpose npm library) to 2e-7 relative (the fit’s 1.2e-7 bound), down to Φ = 1e-6', () => {
+    // below 1e-6 the reference (1 − erf(|x|/√2))/2 itself loses more than 2e-10 to cancellation
+    for (let x = -4.75; x <= 6; x += 0.25) expect(Math.abs(normalCdf(x) / (0.5 * (1 + erf(x / Math.SQRT2))) - 1)).toBeLessThan(2e-7);
+  });
+  it('Φ⁻¹ inverts Φ and matches the tabulated z of 1e-3 and 1e-4 one-sided (3.0902, 3.7190; Abramowitz & Stegun 1964, table 26.5)', () => {
+    expect(normalQuantile(1 - 1e-3)).toBeCloseTo(3.0902, 4);
+    expect(normalQuantile(1 - 1e-4)).toBeCloseTo(3.719, 3);
+    for (const p of [0.01, 0.3, 0.5, 0.9]) expect(normalCdf(normalQuantile(p))).toBeCloseTo(p, 10);
+  });
+});

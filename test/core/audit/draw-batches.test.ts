@@ -1,0 +1,78 @@
+import { describe, expect, it } from 'vitest';
+import { makeBackground, PLANCK18 } from '../../../src/core/cosmology/index.js';
+import { makeHaloModel } from '../../../src/core/halos/index.js';
+import { makeAccretionHistory } from '../../../src/core/audit/accretion.js';
+import { makeCeilingTable } from '../../../src/core/audit/ceiling.js';
+import { fastBackground, tabulatedBackground } from '../../../src/core/audit/galaxy-draws.js';
+import { makeRandom } from '../../../src/core/audit/random.js';
+import { logAccretedBaryons, logAccretedBaryonsOfDraws } from '../../../src/core/audit/time-budget.js';
+
+// The Monte Carlo's batch forms against the per-point functions they replace (the per-point ones are
+// checked against the papers in time-budget.test.ts and the ceiling tests).
+const bg = makeBackground(PLANCK18);
+const FB = 0.157424;
+
+describe('time budget per draw: logAccretedBaryonsOfDraws equals logAccretedBaryons on the same tables', () => {
+  const tab = tabulatedBackground(bg);
+  const history = makeAccretionHistory(tab);
+  const lnAgeAt = fastBackground(bg).lnAgeAt;
+  for (const formationZ of [30, 12, 9]) {
+    it(`formation z = ${formationZ}: 5000 draws (z 4–16, ages 1 Myr to t(z), haloes 1e9–1e13 Msun) agree to 1e-12 in ΔM_h, and empty intervals are −∞ in both`, () => {
+      const rnd = makeRandom(formationZ);
+      const n = 5000;
+      const z = new Float64Array(n);
+      const x = new Float64Array(n);
+      const lnT = new Float64Array(n);
+      const age = new Float64Array(n);
+      const halo = new Float64Array(n);
+      for (let i = 0; i < n; i++) {
+        z[i] = 4 + 12 * rnd.uniform();
+        x[i] = Math.log1p(z[i]);
+        lnT[i] = lnAgeAt(x[i]);
+        // log-uniform from 1 Myr to the age of the universe at z (as galaxy-draws.ts draws it)
+        age[i] = rnd.uniform() * (Math.log10(tab.ageGyr(z[i])) + 3);
+        halo[i] = 9 + 4 * rnd.uniform();
+      }
+      const idx = Int32Array.from({ length: n }, (_, i) => i);
+      const got = logAccretedBaryonsOfDraws(tab, history, FB, formationZ, n, idx, x, lnT, age, halo, new Float64Array(n));
+      const want = logAccretedBaryons(tab, history, FB, formationZ, z, age, halo);
+      let empty = 0;
+      for (let i = 0; i < n; i++) {
+        if (want[i] === Number.NEGATIVE_INFINITY) {
+          empty++;
+          expect(got[i]).toBe(Number.NEGATIVE_INFINITY);
+          continue;
+        }
+        // rounding only: the same tables and formula, the log1p/expm1 round trips left out; 1e-12
+        // relative in ΔM_h is 4.3e-13 in log10 (the tables themselves are good to ~1e-6). Where the
+        // interval is short, f = ΔM_h/M_h ≪ 1, the per-point form loses ~2.2e-16 × 10/f relative in
+        // ln(y/y0) (y/y0 = 1 + f/10 rounded), which the batch form avoids with log1p: up to 4e-15/f more.
+        const f = 10 ** (want[i] - Math.log10(FB) - halo[i]);
+        expect(Math.abs(got[i] - want[i])).toBeLessThan(4.4e-13 + 4e-15 / f);
+      }
+      if (formationZ === 9) expect(empty).toBeGreaterThan(0);
+    });
+  }
+});
+
+describe('ceiling lookups per batch: log10HaloMassesAt equals the per-point lookups bit for bit', () => {
+  const halo = makeHaloModel({ cosmology: PLANCK18, transfer: { kind: 'eh98' }, massFunction: 'sheth-tormen' });
+  const ceil = makeCeilingTable(halo, 40, 0.997, 0.05, 16, 1);
+  const rnd = makeRandom(5);
+  const n = 3000;
+  const z = Float64Array.from({ length: n }, () => 5 + 9 * rnd.uniform());
+  const idx = Int32Array.from({ length: 1000 }, () => Math.floor(n * rnd.uniform()));
+  it('without cosmic variance, every draw and through an index', () => {
+    const out = ceil.log10HaloMassesAt(z, undefined, n, undefined, -0.8, new Float64Array(n));
+    for (let i = 0; i < n; i++) expect(out[i]).toBe(-0.8 + ceil.log10HaloMassAtQuantile(z[i]));
+    const sub = ceil.log10HaloMassesAt(z, idx, idx.length, undefined, 0, new Float64Array(idx.length));
+    for (let i = 0; i < idx.length; i++) expect(sub[i]).toBe(0 + ceil.log10HaloMassAtQuantile(z[idx[i]]));
+  });
+  it('with cosmic variance (σ_dm = 0.12)', () => {
+    const out = ceil.log10HaloMassesAt(z, idx, idx.length, 0.12, -0.8, new Float64Array(idx.length));
+    for (let i = 0; i < idx.length; i++) expect(out[i]).toBe(-0.8 + ceil.log10HaloMassAtQuantileCv(z[idx[i]], 0.12));
+  });
+  it('a redshift outside the table is refused with the per-point message', () => {
+    expect(() => ceil.log10HaloMassesAt([3, 40], undefined, 2, undefined, 0, new Float64Array(2))).toThrow(/outside the ceiling table/);
+  });
+});
