@@ -9,7 +9,7 @@ import { spawnSync } from 'node:child_process';
 import { writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { largeSampleCsv } from './large-sample.mjs';
-import { installProbes } from './page-probes.mjs';
+import { openFresh } from './page-probes.mjs';
 
 const IMFS = 'salpeter,chabrier,kroupa,top-heavy-flat,top-heavy-cmb';
 
@@ -24,11 +24,7 @@ export function cliWallMs(file) {
 export async function pageRun(ctx, base, file, rows) {
   const page = await ctx.newPage();
   try {
-    await installProbes(page);
-    await page.goto(base);
-    await page.evaluate(() => localStorage.clear());
-    await page.reload();
-    await page.waitForFunction(() => window.__probe.audits.length > 0, null, { timeout: 120000 });
+    await openFresh(page, base);
     const t0 = await page.evaluate(() => {
       window.__probe.longTasks.length = 0;
       window.__probe.audits.length = 0;

@@ -10,7 +10,7 @@
 import { writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { largeSampleCsv } from './large-sample.mjs';
-import { installProbes } from './page-probes.mjs';
+import { openFresh } from './page-probes.mjs';
 
 const median = (xs) => [...xs].sort((a, b) => a - b)[Math.floor((xs.length - 1) / 2)];
 
@@ -40,11 +40,7 @@ async function watchCancel(page) {
 async function cancelOnce(ctx, base, file, rows, phase) {
   const page = await ctx.newPage();
   try {
-    await installProbes(page);
-    await page.goto(base);
-    await page.evaluate(() => localStorage.clear());
-    await page.reload();
-    await page.waitForFunction(() => window.__probe.audits.length > 0, null, { timeout: 120000 });
+    await openFresh(page, base);
     await watchCancel(page);
     const t0 = await page.evaluate(() => ((window.__probe.longTasks.length = 0), (window.__probe.audits.length = 0), performance.now()));
     await page.locator('sample-editor input[type=file]').setInputFiles(file);

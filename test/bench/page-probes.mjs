@@ -45,3 +45,12 @@ export async function importSample(page, file, rows, timeout = 300000) {
     return { wallMs: end - t, longTasks: p.longTasks.filter(([s]) => s >= t - 1).map(([, d]) => d), heapBytes: performance.memory?.usedJSHeapSize ?? NaN };
   }, t0);
 }
+
+/** The page at `base` with the probes installed, its saved state cleared, after its first (demo) audit. */
+export async function openFresh(page, base) {
+  await installProbes(page);
+  await page.goto(base);
+  await page.evaluate(() => localStorage.clear());
+  await page.reload();
+  await page.waitForFunction(() => window.__probe.audits.length > 0, null, { timeout: 120000 });
+}

@@ -1,5 +1,5 @@
 import type { Shape } from '../palette.js';
-import { markerPolygons } from './marker-path.js';
+import { addMarkerPolygons, markerPolygons } from './marker-path.js';
 
 /**
  * Markers (or error bars) per Path2D. Chromium's Path2D slows down with every closed sub-path it holds
@@ -25,20 +25,7 @@ export function markerPaths(shape: Shape, p: PixelPoints, r: number): Path2D[] {
   for (let k = 0; k < p.n; k += PER_PATH) {
     const path = new Path2D();
     const end = Math.min(p.n, k + PER_PATH);
-    for (let i = k; i < end; i++) {
-      const x = p.x[i];
-      const y = p.y[i];
-      if (!polys) {
-        path.moveTo(x + r, y);
-        path.arc(x, y, r, 0, 2 * Math.PI);
-        continue;
-      }
-      for (const q of polys) {
-        path.moveTo(x + q[0], y + q[1]);
-        for (let j = 2; j < q.length; j += 2) path.lineTo(x + q[j], y + q[j + 1]);
-        path.closePath();
-      }
-    }
+    for (let i = k; i < end; i++) addMarkerPolygons(path, polys, p.x[i], p.y[i], r);
     out.push(path);
   }
   return out;

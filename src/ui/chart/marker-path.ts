@@ -41,7 +41,11 @@ export function markerPolygons(shape: Shape, r: number): number[][] | null {
 
 /** Adds one marker shape centred on (x, y) to the current path (no beginPath: many markers can share a path). */
 export function addMarker(ctx: CanvasRenderingContext2D | Path2D, shape: Shape, x: number, y: number, r: number): void {
-  const polys = markerPolygons(shape, r);
+  addMarkerPolygons(ctx, markerPolygons(shape, r), x, y, r);
+}
+
+/** Adds a marker from its polygons (markerPolygons; null: a circle of radius r) centred on (x, y). */
+export function addMarkerPolygons(ctx: CanvasRenderingContext2D | Path2D, polys: number[][] | null, x: number, y: number, r: number): void {
   if (!polys) {
     ctx.moveTo(x + r, y);
     ctx.arc(x, y, r, 0, 2 * Math.PI);
