@@ -115,15 +115,26 @@ let paged: { id: number; galaxies: GalaxyRow[] } | undefined;
 /** A pool leader's own rows of the request in flight, kept here until finish(). */
 let kept: { id: number; rows: [number, GalaxyRow][] } | undefined;
 
-function respond(req: AuditRequest, prep: ReturnType<typeof prepareAudit>, galaxies: GalaxyRow[], elapsedMs: number): AuditResponse {
+/**
+ * The response: sample level, curves, points and reports. `beat` is called between its steps (each
+ * call posts a message at once, though this thread stays busy), so that the page's liveness check
+ * hears from a worker that is still working on a large sample.
+ */
+function respond(req: AuditRequest, prep: ReturnType<typeof prepareAudit>, galaxies: GalaxyRow[], elapsedMs: number, beat: () => void = () => undefined): AuditResponse {
   const result = finishAudit(prep, galaxies);
+  beat();
   const curves = curvesFor(req, prep);
   const imfs = [...new Set(result.galaxies.flatMap((g) => (g.imf ? Object.keys(g.imf) : [])))];
   const points = galaxyPoints(result, imfs);
+  beat();
   const n = result.galaxies.length;
   paged = n > GALAXY_PAGE ? { id: req.id, galaxies: result.galaxies } : undefined;
   const shown = paged ? { ...result, galaxies: [] } : result;
-  const resp: AuditResponse = { id: req.id, status: 'done', result: shown, curves, points, markdown: auditMarkdown(result), csv: auditCsv(result), elapsedMs, galaxyCount: n };
+  const markdown = auditMarkdown(result);
+  beat();
+  const csv = auditCsv(result);
+  beat();
+  const resp: AuditResponse = { id: req.id, status: 'done', result: shown, curves, points, markdown, csv, elapsedMs, galaxyCount: n };
   return Comlink.transfer(resp, [...buffers(curves as unknown as Record<string, unknown>), ...points.flatMap((p) => buffers(p as unknown as Record<string, unknown>))]);
 }
 const tick = (): Promise<void> => new Promise((r) => setTimeout(r, 0));
@@ -165,7 +176,7 @@ export const auditApi = {
     const n = prep.parsed.rowCount;
     const rows = await auditIndices(req, prep, Array.from({ length: n }, (_, i) => i), onProgress && ((d) => onProgress(d, n)));
     if (rows === 'cancelled') return { id: req.id, status: 'cancelled', elapsedMs: performance.now() - t0 };
-    return respond(req, prep, rows.map(([, g]) => g), performance.now() - t0);
+    return respond(req, prep, rows.map(([, g]) => g), performance.now() - t0, onProgress && (() => void onProgress(n, n)));
   },
   /**
    * Pool member `part.index` of `part.of`: parses the sample and audits its own share of the rows
@@ -185,17 +196,25 @@ export const auditApi = {
     kept = { id: req.id, rows };
     return rows.length;
   },
-  /** Pool leader: the sample level, figures and reports from its own rows and the other members' JSON parts. */
-  finish(req: AuditRequest, parts: string[], elapsedMs: number): AuditResponse {
+  /**
+   * Pool leader: the sample level, figures and reports from its own rows and the other members' JSON
+   * parts. `beat` (a proxy from the page) is called after each step, so the page hears from it.
+   */
+  finish(req: AuditRequest, parts: string[], elapsedMs: number, beat?: () => void): AuditResponse {
+    const pulse = (): void => void beat?.();
     const prep = prepareAudit(req.csv, req.choices);
+    pulse();
     const galaxies: GalaxyRow[] = new Array(prep.parsed.rowCount);
     const own = kept?.id === req.id ? kept.rows : [];
     kept = undefined;
     for (const [i, g] of own) galaxies[i] = g;
-    for (const part of parts) for (const [i, g] of JSON.parse(part) as [number, GalaxyRow][]) galaxies[i] = g;
+    for (const part of parts) {
+      for (const [i, g] of JSON.parse(part) as [number, GalaxyRow][]) galaxies[i] = g;
+      pulse();
+    }
     const missing = galaxies.findIndex((g) => g === undefined); // findIndex visits holes too
     if (missing >= 0) throw new Error(`the pool lost row ${missing + 1} of the sample`);
-    return respond(req, prep, galaxies, elapsedMs);
+    return respond(req, prep, galaxies, elapsedMs, pulse);
   },
   /** Rows from..to (exclusive) of the large result `id` (see AuditResponse.galaxyCount). */
   galaxyPage(id: number, from: number, to: number): GalaxyRow[] {

@@ -288,7 +288,9 @@ export class AuditController {
       ),
     );
     if (id !== this.seq || answers.includes('cancelled')) return undefined;
-    return this.call(slots[0], (api) => api.finish(req, answers.slice(1) as string[], performance.now() - t0));
+    // The leader beats between the steps of finish(), so the liveness check hears it while it works.
+    const lead = slots[0];
+    return this.call(lead, (api) => api.finish(req, answers.slice(1) as string[], performance.now() - t0, Comlink.proxy(() => void (lead.lastHeard = performance.now()))));
   }
 
   /** A large result's rows, fetched page by page (no single message long to read). */
