@@ -12,7 +12,6 @@ import {
   sampleLevel,
   tallyRow,
   type AuditChoices,
-  type AuditRecord,
   type GalaxyRow,
 } from '../core/audit/index.js';
 import { once } from 'node:events';
@@ -30,12 +29,10 @@ async function backpressure(): Promise<void> {
   if (process.stdout.writableLength > 4 << 20) await once(process.stdout, 'drain');
 }
 
-const indent = (json: string, pad: string): string => json.replace(/\n/g, `\n${pad}`);
 
 /**
- * Writes pieces that together make whole lines (the last piece ends a line): with `out.write` each
- * as it comes, a few at a time (the sample level has one line per number of each galaxy's point);
- * otherwise joined into one `out` call.
+ * Writes pieces that together make whole lines (a line break follows the last): with `out.write`
+ * (standard output) as they come, gathered to 64 kB; otherwise joined into one `out` call.
  */
 async function writePieces(pieces: Iterable<string>, out: LineOut): Promise<void> {
   const write = out.write;
@@ -53,34 +50,6 @@ async function writePieces(pieces: Iterable<string>, out: LineOut): Promise<void
     }
   }
   write(buf + '\n');
-}
-
-/** Characters of the sample written per piece of the record's sample_csv. */
-const TEXT_PIECE = 1 << 20;
-
-/**
- * The record as `JSON.stringify(record, null, 2)` indented by two spaces gives it. With `out.write`
- * (standard output) it is written in pieces: the sample's text (as large as the file) is escaped a
- * piece at a time, never copied whole; a piece never ends between the halves of a surrogate pair.
- */
-async function writeRecord(rec: AuditRecord, out: LineOut): Promise<void> {
-  const write = out.write;
-  if (!write) {
-    out(`  "record": ${indent(JSON.stringify(rec, null, 2), '  ')}\n}`);
-    return;
-  }
-  const head = { tool: rec.tool, version: rec.version, format: rec.format };
-  write(`  "record": ${indent(JSON.stringify(head, null, 2), '  ').slice(0, -4)},\n    "sample_csv": "`);
-  const text = rec.sample_csv;
-  for (let i = 0; i < text.length; ) {
-    let j = Math.min(text.length, i + TEXT_PIECE);
-    const c = text.charCodeAt(j - 1);
-    if (j < text.length && c >= 0xd800 && c <= 0xdbff) j--;
-    write(JSON.stringify(text.slice(i, j)).slice(1, -1));
-    i = j;
-    await backpressure();
-  }
-  write(`",\n    "choices": ${indent(JSON.stringify(rec.choices, null, 2), '    ')}\n  }\n}\n`);
 }
 
 /**
@@ -126,13 +95,15 @@ export async function streamAudit(csv: string, choices: AuditChoices, jobs: numb
   if (pending !== undefined) out(pending);
   const sample = sampleLevel(prep, tally);
   assertFinite(sample, '$.sample');
+  const record = auditRecord(prep);
   await writePieces(
     (function* () {
       yield '  ],\n  "sample": ';
       yield* jsonPieces(sample, '  ');
-      yield `,\n  "caution": ${JSON.stringify(AUDIT_CAUTION)},`;
+      yield `,\n  "caution": ${JSON.stringify(AUDIT_CAUTION)},\n  "record": `;
+      yield* jsonPieces(record, '  ');
+      yield '\n}';
     })(),
     out,
   );
-  await writeRecord(auditRecord(prep), out);
 }

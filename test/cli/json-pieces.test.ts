@@ -21,6 +21,19 @@ describe('JSON written in pieces', () => {
     );
   });
 
+  it('long strings (surrogate pairs, escapes, line breaks) written a piece at a time still join to JSON.stringify', () => {
+    const text = fc.string({ unit: fc.constantFrom('a', '"', '\\', '\n', '\r', '\t', '\u0001', 'é', '😀', '𝔷'), maxLength: 60 });
+    fc.assert(
+      fc.property(fc.dictionary(fc.constantFrom('sample_csv', 'notes', 'id'), text, { maxKeys: 3 }), fc.integer({ min: 1, max: 9 }), (v, n) => {
+        const pieces = [...jsonPieces(v, '  ', { split: 64, text: n })];
+        expect(pieces.join('')).toBe(JSON.stringify(v, null, 2).replace(/\n/g, '\n  '));
+      }),
+      { numRuns: 300 },
+    );
+    // A piece that would end on the first half of a pair ends before it instead (limit 3 → 2 code units).
+    for (const n of [2, 3]) expect([...jsonPieces('😀😀😀', '', { split: 64, text: n })]).toEqual(['"', '😀', '😀', '😀', '"']);
+  });
+
   it('splits a long array into one piece per element, so no piece holds the whole', () => {
     const points = Array.from({ length: 1000 }, (_, i) => ({ id: `P-${i}`, log10M: 9 + i / 1000 }));
     const pieces = [...jsonPieces({ bins: [{ points }] })];
