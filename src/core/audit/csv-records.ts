@@ -74,7 +74,6 @@ export function walkRecords(text: string, dialect: Dialect, onRecord: (rec: RawR
   return { empty, total: line - firstLine, delimiter };
 }
 
-
 /** The line break of a text: LF if it has one (CRLF is LF with a CR the reader strips), else CR, else LF. */
 export function newlineOf(text: string): '\n' | '\r' {
   return text.includes('\n') ? '\n' : text.includes('\r') ? '\r' : '\n';

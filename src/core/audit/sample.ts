@@ -126,6 +126,9 @@ function suggestColumn(name: string): string | undefined {
 /** The header's reading: column names, and the file-level problems it alone decides. */
 interface HeaderFacts {
   readonly header: string[];
+  /** The header's lines, and the column whose cell readRow takes as the id (the last named "id"; −1 if none). */
+  readonly lines: readonly [number, number];
+  readonly idColumn: number;
   readonly dupProblems: string[];
   readonly missing: string[];
   readonly extra: string[];
@@ -163,7 +166,7 @@ function readHeader(head: RawRecord): HeaderFacts {
     const s = suggestColumn(h);
     if (s && !header.includes(s)) fileWarnings.push(`column "${h}" is not one of ours and is only echoed; did you mean "${s}"?`);
   }
-  return { header, dupProblems, missing, extra, fatal, fileErrors, fileWarnings };
+  return { header, lines: head.lines, idColumn: header.lastIndexOf('id'), dupProblems, missing, extra, fatal, fileErrors, fileWarnings };
 }
 
 /** One data record (data row `r`) read and checked; `earlierRow` is the row its id first appeared on, if before it. */
@@ -293,7 +296,6 @@ function readSample(text: string, knownImfs: (name: string) => boolean, each?: (
   const clean = text.replace(/^\uFEFF/, '');
   const dialect: Dialect = { newline: newlineOf(clean) };
   let hf: HeaderFacts | undefined;
-  let head: RawRecord | undefined;
   // Per data record: its start and end offsets and its first line (3 numbers, 24 bytes a row).
   let places = new Float64Array(3 * 1024);
   let count = 0;
@@ -313,7 +315,6 @@ function readSample(text: string, knownImfs: (name: string) => boolean, each?: (
       else ends.set(rec.lineEnd, [rec.lines[1]]);
     }
     if (!hf) {
-      head = rec;
       hf = readHeader(rec);
       for (const h of hf.header) inputColumns.add(h);
       return;
@@ -328,9 +329,8 @@ function readSample(text: string, knownImfs: (name: string) => boolean, each?: (
     places[3 * count + 1] = place.end;
     places[3 * count + 2] = rec.lines[0];
     count++;
-    // The id as readRow sees it: the cell under the last column named "id".
-    const idCol = hf.header.lastIndexOf('id');
-    const id = idCol >= 0 ? (rec.cells[idCol] ?? '').trim() : '';
+    // The id as readRow sees it.
+    const id = hf.idColumn >= 0 ? (rec.cells[hf.idColumn] ?? '').trim() : '';
     let earlier: number | undefined;
     if (id) {
       earlier = seenIds.get(id);
@@ -353,13 +353,13 @@ function readSample(text: string, knownImfs: (name: string) => boolean, each?: (
   dialect.delimiter = walked.delimiter;
   const { empty, total } = walked;
   const summary: SampleSummary = { accepted, zLowest, zHighest, zReach, imfRefs: [...imfRefs], inputColumns: [...inputColumns] };
-  if (!hf || !head) {
+  if (!hf) {
     const fatal = 'the sample is empty (no header row)';
     return { columns: [], extraColumns: [], fileErrors: [fatal], fileWarnings: [], lines: { total, header: [0, 0], empty }, fatal, summary, rowCount: 0, rowAt: noRow };
   }
   const facts = hf;
   const fileWarnings = [...facts.fileWarnings, ...lineWarnings(ends, empty)];
-  seenIds.clear();
+  seenIds.clear(); // rowAt's closure shares this scope: let the ids go
   const rowAt = (i: number): SampleRow => {
     if (!(i >= 0 && i < count)) return noRow(i);
     const start = places[3 * i];
@@ -377,7 +377,7 @@ function readSample(text: string, knownImfs: (name: string) => boolean, each?: (
     extraColumns: facts.extra,
     fileErrors: facts.fileErrors,
     fileWarnings,
-    lines: { total, header: head.lines, empty },
+    lines: { total, header: facts.lines, empty },
     ...(facts.fatal ? { fatal: facts.fatal } : {}),
     summary,
     rowCount: count,
