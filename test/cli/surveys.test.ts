@@ -40,5 +40,9 @@ describe('assess --surveys', () => {
     // Same galaxy, smaller field (2 against 40 arcmin²): a lower ceiling, so a higher required ε (extreme-value statistics).
     const [deep, wide] = j.galaxies.map((g: { imf: { salpeter: { eps_required_median: number } } }) => g.imf.salpeter.eps_required_median);
     expect(deep).toBeGreaterThan(wide);
+    // The sample's densities are those of the default survey's volume: a galaxy of a named survey is
+    // audited against its own field but is not counted in them (README, "Sample level").
+    expect(j.sample.bins[0].galaxies).toBe(1);
+    expect(j.sample.bins[0].points.map((p: { id: string }) => p.id)).toEqual(['Q-2']);
   });
 });
