@@ -68,3 +68,23 @@ describe('sample-level budget', () => {
     expect(b.eps_required_q).toBe(Math.max(p1.eps_required_q, p2.eps_required_q));
   });
 });
+
+describe('sample-level budget: the bin nodes are kept between calls', () => {
+  const members = [
+    { id: 'a', log10M: 10.5, log10MLo: 10.3, log10MHi: 10.7 },
+    { id: 'b', log10M: 9.5, log10MLo: 9.3, log10MHi: 9.7 },
+  ];
+  // Each call below on its own halo model (nothing kept) is the reference: a kept bin must give the same numbers bit for bit.
+  const fresh = (area: number, z0: number, z1: number) => binBudget(makeHaloModel({ cosmology: PLANCK18, transfer: { kind: 'eh98' }, massFunction: 'sheth-tormen' }), area, z0, z1, 0.3, members, 0.997);
+  it('a second call, and calls for another area or bin in between, give what a fresh model gives', () => {
+    const kept = makeHaloModel({ cosmology: PLANCK18, transfer: { kind: 'eh98' }, massFunction: 'sheth-tormen' });
+    const first = binBudget(kept, 40, 9, 10, 0.3, members, 0.997);
+    const other = binBudget(kept, 400, 9, 10, 0.3, members, 0.997);
+    const otherBin = binBudget(kept, 40, 8, 10, 0.3, members, 0.997);
+    expect(binBudget(kept, 40, 9, 10, 0.3, members, 0.997)).toEqual(first);
+    expect(first).toEqual(fresh(40, 9, 10));
+    expect(other).toEqual(fresh(400, 9, 10));
+    expect(otherBin).toEqual(fresh(40, 8, 10));
+    expect(other.volume_mpc3).toBeCloseTo(10 * first.volume_mpc3, 6); // the area enters: ten times the field, ten times the volume
+  });
+});
