@@ -2,17 +2,19 @@ import {
   auditCsvFileRows,
   auditCsvHeader,
   auditCsvRow,
-  auditMarkdown,
   auditRecord,
   AUDIT_CAUTION,
   csvLayoutOf,
-  finishAudit,
+  markdownGalaxy,
+  markdownHead,
+  markdownTail,
   newTally,
   prepareAudit,
   sampleLevel,
   tallyRow,
   type AuditChoices,
   type GalaxyRow,
+  type PreparedAudit,
 } from '../core/audit/index.js';
 import { once } from 'node:events';
 import { CliError } from './cli-error.js';
@@ -53,8 +55,38 @@ async function writePieces(pieces: Iterable<string>, out: LineOut): Promise<void
 }
 
 /**
+ * The Markdown summary as the rows come: the head, one paragraph per galaxy, then the sample level
+ * from the tally. With `out.write` the text goes out in pieces of about 64 kB; otherwise it is one
+ * `out` call. Either way the text is auditMarkdown's, followed by a line break.
+ */
+async function streamMarkdown(prep: PreparedAudit, rows: AsyncIterable<GalaxyRow>, out: LineOut): Promise<void> {
+  const c = prep.choices;
+  const write = out.write;
+  const whole: string[] = [];
+  let buf = '';
+  const put = async (text: string): Promise<void> => {
+    if (!write) return void whole.push(text);
+    buf += text;
+    if (buf.length > 1 << 16) {
+      write(buf);
+      buf = '';
+      await backpressure();
+    }
+  };
+  const tally = newTally(prep);
+  await put(markdownHead(c, prep.parsed.fileErrors, prep.parsed.fileWarnings));
+  for await (const g of rows) {
+    await put(markdownGalaxy(g, c));
+    tallyRow(prep, tally, g);
+  }
+  await put(markdownTail(sampleLevel(prep, tally), c, AUDIT_CAUTION));
+  if (write) write(buf + '\n');
+  else out(whole.join(''));
+}
+
+/**
  * Runs the audit and writes it through `out` as it goes: JSON and CSV one galaxy per line, the
- * sample level and the record at the end (Markdown, a report for people, is written whole). No
+ * sample level and the record at the end; Markdown head, one paragraph per galaxy, then the sample level. No
  * row is kept: the sample is indexed (core/audit/sample.ts), each row read again when audited, and
  * the sample level keeps only its members' masses (SampleTally), so memory stays flat in the rows.
  * A sample without a usable header is a CliError (exit 2); bad choices a RangeError (exit 2).
@@ -65,9 +97,7 @@ export async function streamAudit(csv: string, choices: AuditChoices, jobs: numb
   if (parsed.fatal) throw new CliError(`sample: ${parsed.fatal}`);
   const rows = auditRowsInOrder(prep, jobs, entry);
   if (fmt === 'md') {
-    const kept: GalaxyRow[] = [];
-    for await (const g of rows) kept.push(g);
-    out(auditMarkdown(finishAudit(prep, kept)));
+    await streamMarkdown(prep, rows, out);
     return;
   }
   if (fmt === 'csv') {

@@ -31,7 +31,7 @@ export type { BinBudget, BudgetPoint } from './sample-budget.js';
 export { verdictFor, verdictClass, VERDICTS } from './verdict.js';
 export type { Verdict, Attribution } from './verdict.js';
 export { makeRandom, idSeed, fnv1a32 } from './random.js';
-export { auditCsv, auditCsvHeader, auditCsvRow, auditCsvFileRows, csvLayoutOf, auditMarkdown } from './report.js';
+export { auditCsv, auditCsvHeader, auditCsvRow, auditCsvFileRows, csvLayoutOf, auditMarkdown, markdownHead, markdownGalaxy, markdownTail } from './report.js';
 export type { CsvLayout } from './report.js';
 export { ceilingCurves, galaxyPoints } from './figures.js';
 export type { CeilingCurves, GalaxyPoints } from './figures.js';

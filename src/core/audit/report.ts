@@ -140,8 +140,7 @@ export function reconcileSentence(rc: Reconciliation, epsRef: number, epsMedian:
   return ` It would fit ${goal} if any one of these held: ${parts.join('; ')} — ${hosts}.`;
 }
 
-function galaxyParagraph(g: GalaxyRow, r: AuditResult): string {
-  const c = r.record.choices;
+function galaxyParagraph(g: GalaxyRow, c: AuditChoices): string {
   if (g.status === 'rejected') return `**${g.id ? md(g.id) : `row ${g.row}`}**: not audited. ${g.errors.map((e) => `${md(e.column)}: ${md(e.reason)}`).join('; ')}.`;
   const h = g.imf![g.headline_imf!];
   const others = Object.entries(g.imf!)
@@ -190,6 +189,11 @@ function ordinal(k: number): string {
 /** A plain-language summary for a referee report: assumptions, one paragraph per galaxy, the sample, the caution, the references. */
 export function auditMarkdown(r: AuditResult): string {
   const c = r.record.choices;
+  return [markdownHead(c, r.sample.file_errors, r.sample.file_warnings ?? []), ...r.galaxies.map((g) => markdownGalaxy(g, c)), markdownTail(r.sample, c, r.caution)].join('');
+}
+
+/** The summary's head: the title, the assumptions, the sample file's errors and warnings, and the galaxies' heading. */
+export function markdownHead(c: AuditChoices, fileErrors: readonly string[], fileWarnings: readonly string[]): string {
   const lines: string[] = [];
   lines.push('# Baryon budget audit', '');
   const preset = presetName(c);
@@ -202,21 +206,29 @@ export function auditMarkdown(r: AuditResult): string {
       `IMFs ${c.imfs.map((i) => citeSafe(i)).join(', ')}; Monte Carlo draws, ${md(drawRuleText(c))}; seed ${c.seed}.`,
     '',
   );
-  const fe = r.sample.file_errors;
-  const fw = r.sample.file_warnings ?? [];
-  if (fe.length || fw.length) {
+  if (fileErrors.length || fileWarnings.length) {
     lines.push('## The sample file', '');
-    for (const m of fe) lines.push(`- **Error:** ${md(m)}`);
-    for (const m of fw) lines.push(`- Warning: ${md(m)}`);
+    for (const m of fileErrors) lines.push(`- **Error:** ${md(m)}`);
+    for (const m of fileWarnings) lines.push(`- Warning: ${md(m)}`);
     lines.push('');
   }
   lines.push('## Galaxies', '');
-  for (const g of r.galaxies) lines.push(galaxyParagraph(g, r), '');
+  return `${lines.join('\n')}\n`;
+}
+
+/** One galaxy's paragraph of the summary, with the blank line after it. */
+export function markdownGalaxy(g: GalaxyRow, c: AuditChoices): string {
+  return `${galaxyParagraph(g, c)}\n\n`;
+}
+
+/** The summary's tail: the sample level, the counts, the caution and the references. */
+export function markdownTail(sample: AuditResult['sample'], c: AuditChoices, caution: string): string {
+  const lines: string[] = [];
   lines.push('## Sample', '');
-  for (const b of r.sample.bins) lines.push(sampleSentence(b, c), '');
-  lines.push(`${r.sample.accepted} ${r.sample.accepted === 1 ? 'row was' : 'rows were'} audited and ${r.sample.rejected} rejected.`, '', `*Caution:* ${r.caution}`, '');
+  for (const b of sample.bins) lines.push(sampleSentence(b, c), '');
+  lines.push(`${sample.accepted} ${sample.accepted === 1 ? 'row was' : 'rows were'} audited and ${sample.rejected} rejected.`, '', `*Caution:* ${caution}`, '');
   lines.push('## References', '');
-  for (const ref of referencesFor(c, preset)) lines.push(`- ${ref}`);
+  for (const ref of referencesFor(c, presetName(c))) lines.push(`- ${ref}`);
   lines.push('');
   return lines.join('\n');
 }
