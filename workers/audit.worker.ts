@@ -48,6 +48,11 @@ export interface AuditResponse {
   readonly csv?: string;
   readonly elapsedMs: number;
   /**
+   * Galaxies in tension whose reconciliation (what it would take) was left out of this answer: a first look
+   * (see auditApi.run). When it is above 0, `markdown` and `csv` are absent; the whole answer follows.
+   */
+  readonly reconcileLeftOut?: number;
+  /**
    * Number of galaxies of the result. When it exceeds GALAXY_PAGE, `result.galaxies` comes back empty
    * and the rows are fetched with galaxyPage(id, from, to).
    */
@@ -83,18 +88,26 @@ let mapPrep: { key: string; prep: ReturnType<typeof prepareAudit> } | undefined;
 const rowCache = new Map<string, GalaxyRow>();
 const curveCache = new Map<string, CeilingCurves>();
 
-function cachedRow(prep: ReturnType<typeof prepareAudit>, choicesKey: string, i: number): GalaxyRow {
+/**
+ * Row i, from the store or audited. A first look (`firstLook`) leaves out the reconciliation of a galaxy
+ * in tension; such a row is stored under a key of its own, while a galaxy within budget (whose audit is
+ * the same either way) is stored as the whole row.
+ */
+function cachedRow(prep: ReturnType<typeof prepareAudit>, choicesKey: string, i: number, firstLook = false): GalaxyRow {
   const r = prep.parsed.rowAt(i);
   if (r.status !== 'ok') return auditRow(prep, i, r);
   const key = `${choicesKey}|${r.row}|${JSON.stringify(r.raw)}`;
-  let g = rowCache.get(key);
+  let g = rowCache.get(key) ?? (firstLook ? rowCache.get(`${key}|first look`) : undefined);
   if (!g) {
-    g = auditRow(prep, i, r);
+    g = auditRow(prep, i, r, { reconcile: !firstLook });
     if (rowCache.size > 20000) rowCache.clear();
-    rowCache.set(key, g);
+    rowCache.set(firstLook && leftOut(g) ? `${key}|first look` : key, g);
   }
   return g;
 }
+
+/** Whether a row of a first look is a galaxy in tension, whose reconciliation was left out. */
+const leftOut = (g: GalaxyRow): boolean => g.status === 'ok' && g.verdict !== 'within budget' && (g.reconcile?.length ?? 0) === 0;
 
 function curvesFor(req: AuditRequest, prep: ReturnType<typeof prepareAudit>): CeilingCurves {
   const c = req.choices;
@@ -120,7 +133,7 @@ let kept: { id: number; rows: [number, GalaxyRow][] } | undefined;
  * call posts a message at once, though this thread stays busy), so that the page's liveness check
  * hears from a worker that is still working on a large sample.
  */
-function respond(req: AuditRequest, prep: ReturnType<typeof prepareAudit>, galaxies: GalaxyRow[], elapsedMs: number, beat: () => void = () => undefined): AuditResponse {
+function respond(req: AuditRequest, prep: ReturnType<typeof prepareAudit>, galaxies: GalaxyRow[], elapsedMs: number, beat: () => void = () => undefined, reconcileLeftOut = 0): AuditResponse {
   const result = finishAudit(prep, galaxies);
   beat();
   const curves = curvesFor(req, prep);
@@ -130,11 +143,12 @@ function respond(req: AuditRequest, prep: ReturnType<typeof prepareAudit>, galax
   const n = result.galaxies.length;
   paged = n > GALAXY_PAGE ? { id: req.id, galaxies: result.galaxies } : undefined;
   const shown = paged ? { ...result, galaxies: [] } : result;
-  const markdown = auditMarkdown(result);
+  // A first look has no reports: they would say nothing of what it would take for the galaxies in tension.
+  const markdown = reconcileLeftOut ? undefined : auditMarkdown(result);
   beat();
-  const csv = auditCsv(result);
+  const csv = reconcileLeftOut ? undefined : auditCsv(result);
   beat();
-  const resp: AuditResponse = { id: req.id, status: 'done', result: shown, curves, points, markdown, csv, elapsedMs, galaxyCount: n };
+  const resp: AuditResponse = { id: req.id, status: 'done', result: shown, curves, points, markdown, csv, elapsedMs, galaxyCount: n, ...(reconcileLeftOut ? { reconcileLeftOut } : {}) };
   return Comlink.transfer(resp, [...buffers(curves as unknown as Record<string, unknown>), ...points.flatMap((p) => buffers(p as unknown as Record<string, unknown>))]);
 }
 const tick = (): Promise<void> => new Promise((r) => setTimeout(r, 0));
@@ -143,7 +157,7 @@ const tick = (): Promise<void> => new Promise((r) => setTimeout(r, 0));
  * Audits the rows at `indices` for request `req`. Progress is reported at most every 100 ms and never
  * awaited; every 50 ms the loop yields so that cancel() or a newer request can stop it.
  */
-async function auditIndices(req: AuditRequest, prep: ReturnType<typeof prepareAudit>, indices: number[], onProgress?: (done: number) => void): Promise<[number, GalaxyRow][] | 'cancelled'> {
+async function auditIndices(req: AuditRequest, prep: ReturnType<typeof prepareAudit>, indices: number[], onProgress?: (done: number) => void, firstLook = false): Promise<[number, GalaxyRow][] | 'cancelled'> {
   current = req.id;
   const ck = JSON.stringify(req.choices);
   const out: [number, GalaxyRow][] = [];
@@ -151,7 +165,7 @@ async function auditIndices(req: AuditRequest, prep: ReturnType<typeof prepareAu
   let lastTick = performance.now();
   for (let j = 0; j < indices.length; j++) {
     if (current !== req.id) return 'cancelled';
-    out.push([indices[j], cachedRow(prep, ck, indices[j])]);
+    out.push([indices[j], cachedRow(prep, ck, indices[j], firstLook)]);
     if (onProgress && performance.now() - lastProgress > 100) {
       lastProgress = performance.now();
       void onProgress(j + 1);
@@ -170,13 +184,32 @@ function buffers(x: { [k: string]: unknown } | undefined): ArrayBuffer[] {
 }
 
 export const auditApi = {
-  async run(req: AuditRequest, onProgress?: (done: number, total: number) => void): Promise<AuditResponse> {
+  /**
+   * The audit of every row. A first look (`firstLook`, for samples that fit one answer) leaves out what it
+   * would take to reconcile the galaxies in tension, the slowest step, so the page can draw the figures
+   * first; its answer counts them in `reconcileLeftOut` and has no reports, and the page asks a second
+   * worker for the whole audit at the same time.
+   */
+  async run(req: AuditRequest, onProgress?: (done: number, total: number) => void, firstLook = false): Promise<AuditResponse> {
     const t0 = performance.now();
     const prep = prepareAudit(req.csv, req.choices);
     const n = prep.parsed.rowCount;
-    const rows = await auditIndices(req, prep, Array.from({ length: n }, (_, i) => i), onProgress && ((d) => onProgress(d, n)));
+    const quick = firstLook && n <= GALAXY_PAGE;
+    const rows = await auditIndices(req, prep, Array.from({ length: n }, (_, i) => i), onProgress && ((d) => onProgress(d, n)), quick);
     if (rows === 'cancelled') return { id: req.id, status: 'cancelled', elapsedMs: performance.now() - t0 };
-    return respond(req, prep, rows.map(([, g]) => g), performance.now() - t0, onProgress && (() => void onProgress(n, n)));
+    const galaxies = rows.map(([, g]) => g);
+    const left = quick ? galaxies.filter(leftOut).length : 0;
+    return respond(req, prep, galaxies, performance.now() - t0, onProgress && (() => void onProgress(n, n)), left);
+  },
+  /**
+   * Audits every row of `req` into this worker's store of rows and answers nothing else: a second worker
+   * readied this way (tables built, rows stored) gives the whole audit beside a first look at once.
+   */
+  async warm(req: AuditRequest): Promise<'done' | 'cancelled'> {
+    const prep = prepareAudit(req.csv, req.choices);
+    const n = prep.parsed.rowCount;
+    const rows = await auditIndices(req, prep, Array.from({ length: Math.min(n, GALAXY_PAGE) }, (_, i) => i));
+    return rows === 'cancelled' ? rows : 'done';
   },
   /**
    * Pool member `part.index` of `part.of`: parses the sample and audits its own share of the rows

@@ -16,6 +16,11 @@ export interface ControllerState {
   /** Estimated seconds until every row is audited, from `rowsPerSecond`. */
   readonly secondsLeft?: number;
   readonly response?: AuditResponse;
+  /**
+   * The response on show is a first look (`response.reconcileLeftOut` > 0) and the whole audit, with what it
+   * would take for the galaxies in tension and the reports, is on its way.
+   */
+  readonly settling?: boolean;
   /** What went wrong, in words for the page (input problem or worker failure). */
   readonly message?: string;
   readonly restarts: number;
@@ -74,6 +79,9 @@ export class AuditController {
   private inFlight?: { csv: string; choices: AuditChoices };
   private failures = 0;
   private gaveUp = false;
+  /** The second worker has built its tables (see readySecond): small samples then get a first look. */
+  private secondReady = false;
+  private readying = false;
   private disposed = false;
   private restartTimer?: ReturnType<typeof setTimeout>;
   private watchdog?: ReturnType<typeof setInterval>;
@@ -127,6 +135,30 @@ export class AuditController {
 
   private start(): void {
     this.slots = [this.spawn('the computation worker')];
+    this.secondReady = false;
+    this.readying = false;
+  }
+
+  /** Whether small samples get a first look beside the whole audit (a second worker is ready). */
+  get firstLooks(): boolean {
+    return this.secondReady;
+  }
+
+  /**
+   * After a whole audit is on show, a second worker builds its tables by auditing the same sample (its
+   * answer is not used), so that later runs of small samples get a first look while it does the whole.
+   */
+  private readySecond(req: { id: number; csv: string; choices: AuditChoices }): void {
+    if (this.poolSize < 2 || this.secondReady || this.readying) return;
+    this.readying = true;
+    const slot = this.pool(2)[1];
+    this.call(slot, (api) => api.warm(req)).then(
+      (r) => {
+        if (this.slots[1] === slot) this.secondReady = r === 'done';
+        if (this.slots[1] === slot) this.readying = false;
+      },
+      () => undefined, // a lost worker restarts the set (crashed), which starts over
+    );
   }
 
   /** The main worker and k − 1 pool helpers. */
@@ -244,9 +276,9 @@ export class AuditController {
   async run(csv: string, choices: AuditChoices, keepMessage = false): Promise<void> {
     const id = ++this.seq;
     this.ensureStarted();
-    if (this.state.status === 'running') for (const s of this.slots) void s.api.cancel();
+    if (this.state.status === 'running' || this.state.settling) for (const s of this.slots) void s.api.cancel();
     this.inFlight = { csv, choices };
-    this.set({ status: 'running', done: 0, total: 0, rowsPerSecond: undefined, secondsLeft: undefined, ...(keepMessage ? {} : { message: undefined }) });
+    this.set({ status: 'running', settling: false, done: 0, total: 0, rowsPerSecond: undefined, secondsLeft: undefined, ...(keepMessage ? {} : { message: undefined }) });
     const t0 = performance.now();
     const main = this.main;
     try {
@@ -255,27 +287,53 @@ export class AuditController {
       const k = this.poolSize > 1 ? threadsFor(lineCount(csv) - 1, this.poolSize) : 1;
       const req = { id, csv, choices };
       let resp: AuditResponse | undefined;
+      let whole: Promise<AuditResponse> | undefined;
       if (k > 1) resp = await this.runPool(id, req, k, t0);
       else {
         this.track(id, 1);
-        resp = await this.call(main, (api) => api.run(req, Comlink.proxy((done: number, total: number) => this.onProgress(id, main, 0, done, total))));
+        // With a second worker: a first look here (no reconciliation) and the whole audit there, at once.
+        const second = this.secondReady ? this.slots[1] : undefined;
+        whole = second && this.call(second, (api) => api.run(req));
+        whole?.catch(() => undefined); // settled below, or dropped with a newer request
+        const first = this.call(main, (api) => api.run(req, Comlink.proxy((done: number, total: number) => this.onProgress(id, main, 0, done, total)), second !== undefined));
+        resp = await Promise.race([first, whole ?? first]);
       }
       if (!resp || id !== this.seq || resp.status === 'cancelled') return;
       const full = await this.pages(id, main, resp);
       if (!full || id !== this.seq) return;
-      this.lastGood = { csv, choices };
-      this.failures = 0;
-      this.progress = undefined;
-      const n = full.result?.galaxies.length ?? 0;
-      // for the benchmarks: the moment the whole result is on the main thread, before the page draws it
-      performance.clearMarks('baryon-audit:result');
-      performance.mark('baryon-audit:result');
-      this.set({ status: 'done', response: full, done: n, total: n, secondsLeft: 0 });
+      const settling = (full.reconcileLeftOut ?? 0) > 0 && whole !== undefined;
+      this.show(id, full, settling, csv, choices);
+      if (settling) await this.settle(id, full, whole!, t0);
+      else if (whole) for (const s of this.slots.slice(0, 2)) void s.api.cancel(); // one answer was whole: the other is not needed
+      else if (k === 1) this.readySecond(req);
     } catch (e) {
       if (id !== this.seq) return;
       this.progress = undefined;
-      this.set({ status: 'error', message: (e as Error).message || String(e) });
+      this.set({ status: 'error', settling: false, message: (e as Error).message || String(e) });
     }
+  }
+
+  /** Puts a response on show (a first look while `settling`, else the whole audit). */
+  private show(id: number, response: AuditResponse, settling: boolean, csv: string, choices: AuditChoices): void {
+    this.lastGood = { csv, choices };
+    this.failures = 0;
+    this.progress = undefined;
+    const n = response.result?.galaxies.length ?? 0;
+    // for the benchmarks: the moment the whole result is on the main thread, before the page draws it
+    performance.clearMarks('baryon-audit:result');
+    performance.mark('baryon-audit:result');
+    this.set({ status: 'done', settling, response, done: n, total: n, secondsLeft: 0 });
+  }
+
+  /**
+   * The whole audit after a first look: its rows (the first look's, with what it would take for the
+   * galaxies in tension) and its reports replace those on show; the figures' data (the same numbers) stay.
+   */
+  private async settle(id: number, first: AuditResponse, whole: Promise<AuditResponse>, t0: number): Promise<void> {
+    const w = await whole;
+    if (id !== this.seq || w.status === 'cancelled') return;
+    const response: AuditResponse = { ...first, result: w.result, markdown: w.markdown, csv: w.csv, reconcileLeftOut: undefined, elapsedMs: performance.now() - t0 };
+    this.set({ settling: false, response });
   }
 
   /** Large samples: rows dealt over the pool; the leader (main worker) keeps its rows and finishes. */
@@ -311,7 +369,7 @@ export class AuditController {
     this.seq++;
     this.progress = undefined;
     for (const s of this.slots) void s.api.cancel();
-    this.set({ status: this.state.response ? 'done' : 'idle', message: 'run cancelled', rowsPerSecond: undefined, secondsLeft: undefined });
+    this.set({ status: this.state.response ? 'done' : 'idle', settling: false, message: 'run cancelled', rowsPerSecond: undefined, secondsLeft: undefined });
   }
 
   async explore(req: ExplorerRequest): Promise<ExplorerResponse> {

@@ -77,6 +77,8 @@ export class BaryonAuditApp extends LitElement {
   private lastShown = 0;
   /** Figure models of the response on show, rebuilt only when the response or the selection changes. */
   private figCache?: { id: number; selected: string; figs: ChartModel[] };
+  /** The last summary shown: it stays (dimmed after a moment) while a first look's reports are on their way. */
+  private summaryShown = '';
   /** Inputs that have been typed into (fields without a `data-v` committed value): Ctrl-Z there is theirs. */
   private typing = new WeakSet<EventTarget>();
 
@@ -122,7 +124,8 @@ export class BaryonAuditApp extends LitElement {
     .out { position: relative; }
     /* The results' containing block clips sideways: nothing inside (hidden labels included) widens the page. */
     .out > .body { position: relative; overflow-x: clip; transition: opacity 0.2s ease 0.4s; }
-    .out.pending > .body { opacity: 0.7; }
+    .out.pending > .body, .summary.settling { opacity: 0.7; }
+    .summary { transition: opacity 0.2s ease 0.4s; }
     .out.stale > .body { opacity: 0.35; filter: grayscale(0.7); transition: none; }
     .stale-badge { position: sticky; top: 0; z-index: 2; margin: 0.4rem 0; padding: 0.35rem 0.6rem; background: #fde2d6; border: 2px solid #D55E00; font-weight: 600; }
     .stale-badge button { margin-left: 0.5rem; font-weight: normal; }
@@ -333,11 +336,16 @@ export class BaryonAuditApp extends LitElement {
     );
   }
 
+  protected willUpdate(): void {
+    const md = this.ctl.response?.markdown;
+    if (md !== undefined) this.summaryShown = md;
+  }
+
   protected updated(): void {
     this.loadMap();
     this.loadUvSlope();
     const resp = this.ctl.response;
-    if (resp && this.ctl.status === 'done' && resp.id !== this.lastShown) {
+    if (resp && this.ctl.status === 'done' && !this.ctl.settling && resp.id !== this.lastShown) {
       this.lastShown = resp.id;
       void figureElements()
         .then(() => Promise.all([...this.renderRoot.querySelectorAll('audit-chart')].map((c) => c.updateComplete)))
@@ -444,6 +452,8 @@ export class BaryonAuditApp extends LitElement {
           ? 'The results below are being updated for your latest edit.'
         : '';
     const h = this.hist;
+    // A first look: the galaxies in tension lack what it would take, and the reports are on their way.
+    const firstLook = resp?.reconcileLeftOut ?? 0;
     return html`
       <header>
         <h1>Baryon Audit</h1>
@@ -477,7 +487,9 @@ export class BaryonAuditApp extends LitElement {
                     ? html`<span class="rate">${this.ctl.rowsPerSecond.toFixed(0)} rows/s, about ${Math.ceil(this.ctl.secondsLeft ?? 0)} s left</span>`
                     : nothing}<button type="button" @click=${() => this.controller?.cancel()}>Cancel</button>`
               : this.ctl.status === 'done' && resp
-                ? html`<span>Audited ${result!.sample.accepted} galaxies (${result!.sample.rejected} rejected) in ${(resp.elapsedMs / 1000).toFixed(2)} s.</span>`
+                ? html`<span>Audited ${result!.sample.accepted} galaxies (${result!.sample.rejected} rejected) in ${(resp.elapsedMs / 1000).toFixed(2)} s.</span>${firstLook
+                    ? html`<span class="rate">${this.ctl.settling ? `Working out what it would take for ${firstLook} in tension…` : `What it would take for ${firstLook} in tension was not worked out: the run stopped first.`}</span>`
+                    : nothing}`
                 : nothing}
           </div>
           ${this.ctl.message && this.ctl.status !== 'error' && !/restarted/.test(this.ctl.message)
@@ -497,7 +509,7 @@ export class BaryonAuditApp extends LitElement {
               : nothing}
             <div class="body" aria-describedby="stale-text">
               <h2>Per galaxy</h2>
-              <results-table .result=${result} .selected=${this.selected} @galaxy-select=${(e: CustomEvent<{ id: string }>) => (this.selected = e.detail.id)}></results-table>
+              <results-table .result=${result} .selected=${this.selected} .reconcileLeftOut=${firstLook ? (this.ctl.settling ? 'coming' : 'stopped') : 'no'} @galaxy-select=${(e: CustomEvent<{ id: string }>) => (this.selected = e.detail.id)}></results-table>
               <h2>Figures</h2>
               <div class="figs" @download=${(e: CustomEvent<{ name: string; blob: Blob }>) => download(e.detail.name, e.detail.blob)}>
                 ${figs.map((m) => html`<audit-chart .model=${m} .highlight=${this.selected}></audit-chart>`)}
@@ -516,13 +528,13 @@ export class BaryonAuditApp extends LitElement {
               <h2>Export</h2>
               <div class="exports">
                 <button type="button" ?disabled=${!resp?.csv} @click=${() => this.exportText('baryon-audit.csv', resp!.csv!, 'text/csv')}>Results CSV</button>
-                <button type="button" ?disabled=${!result} @click=${() => this.exportText('baryon-audit.json', JSON.stringify(result, null, 1), 'application/json')}>Full JSON record</button>
+                <button type="button" ?disabled=${!result || firstLook > 0} @click=${() => this.exportText('baryon-audit.json', JSON.stringify(result, null, 1), 'application/json')}>Full JSON record</button>
                 <button type="button" ?disabled=${!resp?.markdown} @click=${() => this.exportText('baryon-audit.md', resp!.markdown!, 'text/markdown')}>Markdown summary</button>
                 <button type="button" @click=${() => this.copyShare()}>Share link</button>
                 <label class="button">Import JSON record…<input class="visually-hidden" type="file" accept=".json,application/json" @change=${this.importRecord} aria-label="Import a JSON record" /></label>
               </div>
               <h2>Summary</h2>
-              <audit-summary .markdown=${resp?.markdown ?? ''}></audit-summary>
+              <div class=${firstLook ? 'summary settling' : 'summary'}><audit-summary .markdown=${resp?.markdown ?? this.summaryShown}></audit-summary></div>
             </div>
           </div>
         </section>

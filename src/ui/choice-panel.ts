@@ -9,7 +9,7 @@ import { decodeText } from '../core/audit/text-decoding.js';
 import { MASS_FUNCTIONS } from '../core/halos/index.js';
 import { IMF_PRESETS, parseCustomImf } from '../core/stars/index.js';
 import { parseSfh } from '../core/stars/sfh.js';
-import { AUDIT_NUMBER_SPECS, type ChoiceNumberSpec } from './audit-number-specs.js';
+import { AUDIT_NUMBER_SPECS, AUDIT_SWITCH_SPECS, type ChoiceNumberSpec } from './audit-number-specs.js';
 import { described, FieldHelp, helpStyles } from './field-help.js';
 import { isRounded, shortNumber } from './number-format.js';
 import { fieldValue } from './field-value.js';
@@ -126,7 +126,17 @@ export class ChoicePanel extends LitElement {
 
   private setNum(s: ChoiceNumberSpec, raw: string): void {
     const v = this.num(s.key, s.label, raw, s.min, s.max, s.integer);
-    if (v !== undefined && this.choices) this.emit({ ...this.choices, [s.key]: v });
+    if (v === undefined || !this.choices) return;
+    // An optional choice at its default leaves the key out, so records and links of the default stay as they were.
+    const { [s.key]: _, ...rest } = this.choices;
+    this.emit(s.optional && v === s.default ? (rest as PanelChoices) : { ...this.choices, [s.key]: v });
+  }
+
+  /** A yes/no choice; false (the default) leaves the key out. */
+  private setSwitch(key: (typeof AUDIT_SWITCH_SPECS)[number]['key'], on: boolean): void {
+    if (!this.choices) return;
+    const { [key]: _, ...rest } = this.choices;
+    this.emit(on ? { ...this.choices, [key]: true } : (rest as PanelChoices));
   }
 
   private setCosmo(key: keyof CosmologyParams, label: string, raw: string, min: number, max: number): void {
@@ -376,8 +386,12 @@ export class ChoicePanel extends LitElement {
         <legend>Audit</legend>
         <div class="fields">
           ${AUDIT_NUMBER_SPECS.map((s) =>
-            this.numberField(s.key, `${s.label}${s.unit ? ` [${s.unit}]` : ''}`, c[s.key], `${s.doc}; allowed ${s.min} to ${s.max}${s.integer ? ', whole numbers' : ''}`, (raw) => this.setNum(s, raw), s.step),
+            this.numberField(s.key, `${s.label}${s.unit ? ` [${s.unit}]` : ''}`, c[s.key] ?? s.default!, `${s.doc}; allowed ${s.min} to ${s.max}${s.integer ? ', whole numbers' : ''}`, (raw) => this.setNum(s, raw), s.step),
           )}
+          ${AUDIT_SWITCH_SPECS.map((s) => {
+            const text = `${s.label}: ${s.doc}`;
+            return html`<label class="row" data-help=${text}><input type="checkbox" aria-describedby=${`d-${s.key}`} .checked=${live(c[s.key] ?? s.default)} @change=${(e: Event) => this.setSwitch(s.key, (e.target as HTMLInputElement).checked)} />${s.label}${described(`d-${s.key}`, text)}</label>`;
+          })}
         </div>
       </fieldset>
     `;

@@ -10,8 +10,8 @@ export const verdictKey = (g: GalaxyRow): VerdictKey => (g.status === 'rejected'
 
 const RANK: Record<string, number> = { 'within budget': 0, strained: 1, 'over budget': 2 };
 
-/** Sort keys: input order, id, z, headline verdict (then its ε), attribution, or ε_req under one IMF. */
-export type SortKey = 'row' | 'id' | 'z' | 'verdict' | 'attribution' | `imf:${string}`;
+/** Sort keys: input order, id, z, headline verdict (then its ε), attribution, ε_req under one IMF, or the Monte Carlo draws made. */
+export type SortKey = 'row' | 'id' | 'z' | 'verdict' | 'attribution' | 'draws' | `imf:${string}`;
 
 /** The value a row sorts by; NaN (missing) always sorts last. */
 export function sortValue(g: GalaxyRow, key: SortKey): number | string {
@@ -20,6 +20,7 @@ export function sortValue(g: GalaxyRow, key: SortKey): number | string {
   if (g.status !== 'ok') return NaN;
   if (key === 'z') return Number(g.input.z);
   if (key === 'attribution') return (g.attribution ?? []).join(', ');
+  if (key === 'draws') return g.monte_carlo?.draws_made ?? NaN;
   if (key === 'verdict') {
     const e = g.imf?.[g.headline_imf ?? '']?.eps_required_median ?? 0;
     return RANK[g.verdict ?? ''] + e / (1 + e);

@@ -28,7 +28,17 @@ const COLUMN_EXPLAIN: Record<string, string> = {
   z: 'redshift as given',
   verdict: 'headline verdict, under the headline IMF (the row’s imf_ref, else the first IMF compared), whose mark follows it',
   attribution: 'what drives the tension: every IMF, IMF, redshift, volume or Eddington bias',
+  draws: 'Monte Carlo draws made for this galaxy (the adaptive rule stops once its medians and verdicts are settled; fixed draws: all of them)',
 };
+
+const STOP_TEXT: Record<string, string> = { fixed: 'fixed number of draws', settled: 'stopped: medians and verdicts settled', maximum: 'reached the most draws allowed' };
+
+/** The Monte Carlo line of a galaxy: draws, why they stopped, the medians' errors and the chance of a verdict change. */
+function monteCarloText(g: GalaxyRow): string {
+  const m = g.monte_carlo;
+  if (!m) return 'Monte Carlo: not reported.';
+  return `Monte Carlo: ${m.draws_made} draws (${STOP_TEXT[m.stop] ?? m.stop}); MC error of the medians ${m.log_mstar_median_mc_error_dex.toFixed(3)} dex in log M*, ${m.log_eps_required_median_mc_error_dex.toFixed(3)} dex in log ε_req; chance a verdict lies across its threshold ${m.p_verdict_change < 1e-4 ? '< 1e-4' : m.p_verdict_change.toFixed(4)}.`;
+}
 
 const f2 = (x: number): string => (x >= 999 ? '>999' : x >= 10 ? x.toFixed(0) : x >= 0.01 ? x.toFixed(2) : x.toExponential(1));
 const idOf = (g: GalaxyRow): string => g.id || `row ${g.row}`;
@@ -36,8 +46,8 @@ const idOf = (g: GalaxyRow): string => g.id || `row ${g.row}`;
 /** Height of a compact row and of one line of the details, px (fixed in the stylesheet below). */
 const ROW_H = 27;
 const LINE_H = 22;
-/** Lines of an expanded row under its IMF table, before the reconciliation: ceiling, Eddington and time budget, attribution. */
-const DETAIL_LINES = 3;
+/** Lines of an expanded row under its IMF table, before the reconciliation: ceiling, Eddington and time budget, attribution, Monte Carlo. */
+const DETAIL_LINES = 4;
 
 /**
  * <results-table>: the audit per galaxy for samples of any size. One compact row per galaxy: the headline
@@ -53,6 +63,11 @@ const DETAIL_LINES = 3;
 export class ResultsTable extends LitElement {
   @property({ attribute: false }) result?: AuditResult;
   @property() selected = '';
+  /**
+   * The result is a first look, without what it would take for the galaxies in tension: 'coming' while the
+   * whole audit is on its way, 'stopped' if it will not come (the run was replaced or cancelled).
+   */
+  @property() reconcileLeftOut: 'no' | 'coming' | 'stopped' = 'no';
 
   @state() private sortKey: SortKey = 'row';
   @state() private sortDir: 1 | -1 = 1;
@@ -267,7 +282,7 @@ export class ResultsTable extends LitElement {
     const id = idOf(g);
     const open = this.expanded.has(id);
     const cls = `row${g.status === 'rejected' ? ' rejected' : ''}${g.id === this.selected && g.status === 'ok' ? ' sel' : ''}${i === this.active ? ' active' : ''}`;
-    const cols = 4 + this.imfs.length;
+    const cols = 5 + this.imfs.length;
     const tog = html`<button class="tog" type="button" tabindex="-1" aria-expanded=${open ? 'true' : 'false'} aria-label=${`${open ? 'hide' : 'show'} the numbers of ${id}`} @click=${() => this.setExpanded(g, !open)}>${open ? '▾' : '▸'}</button>`;
     if (g.status === 'rejected') {
       const why = `rejected: ${g.errors.map((e) => `${e.column}: ${e.reason}`).join('; ')}`;
@@ -293,6 +308,7 @@ export class ResultsTable extends LitElement {
           const tip = `${imf}: ${v.verdict}, ε_req ${f2(v.eps_required_median)} (5–95%: ${f2(v.eps_required_p05)}–${f2(v.eps_required_p95)}), P(ε_req > 1) = ${v.p_over_budget.toFixed(2)}`;
           return html`<td class=${`imf${imf === g.headline_imf ? ' head' : ''}`}><div class="c" title=${tip}>${mark(st.shape, st.color, VERDICT_FILL[v.verdict])}<span class="vh">${imf}: ${v.verdict}, ε_req</span><span class=${`eps t-${vClass(v.verdict)}`}>${f2(v.eps_required_median)}</span></div></td>`;
         })}
+        <td class="num"><div class="c" title=${monteCarloText(g)}>${g.monte_carlo?.draws_made ?? '—'}</div></td>
       </tr>
       ${open ? this.details(g, cols) : nothing}`;
   }
@@ -325,8 +341,13 @@ export class ResultsTable extends LitElement {
       <p>Ceiling: M_halo = ${c.halo_mass_at_quantile_msun.toExponential(2)} Msun at the rarest-halo quantile in ${c.slice_z_min.toFixed(2)} < z < ${c.slice_z_max.toFixed(2)}${c.log_mass_cosmo_sd_dex !== undefined ? `, spread ${c.log_mass_cosmo_sd_dex.toFixed(3)} dex (1σ) from the cosmological parameters' uncertainty` : ''}.</p>
       <p>${e ? `Eddington bias: log M* lowered by ${e.shift_dex.toFixed(2)} dex (first order α σ² ln 10: ${e.shift_first_order_dex.toFixed(2)} dex; σ = ${e.sigma_dex} dex).` : 'Eddington bias: no mass error given.'}
         ${t ? ` Time budget: ${t.formed_mass_msun.toExponential(2)} Msun of stars formed while the ceiling halo accreted ${t.accreted_baryons_msun.toExponential(2)} Msun of baryons (ratio ${f2(t.ratio)}, P(ratio > 1) = ${t.p_ratio_over_1.toFixed(2)}).` : ''}</p>
+      <p>${monteCarloText(g)}</p>
       <p>Attribution: ${attr.length ? attr.map((a, k) => html`${k ? '; ' : ''}<span class="term" tabindex="-1" data-tip=${`${a.cause}: ${EXPLAIN[a.cause] ?? ''}`} title=${EXPLAIN[a.cause] ?? ''}>${a.cause}</span> (via ${a.via}: ${a.verdict_after} after)`) : g.attribution!.length ? g.attribution!.join(', ') : 'none'}.</p>
-      ${rec.length ? rec.map((rc) => html`<p class="rc">${reconcileSentence(rc, epsRef, head.eps_required_median).trim()}</p>`) : html`<p class="rc">Within budget: nothing to reconcile.</p>`}
+      ${rec.length
+        ? rec.map((rc) => html`<p class="rc">${reconcileSentence(rc, epsRef, head.eps_required_median).trim()}</p>`)
+        : g.verdict === 'within budget'
+          ? html`<p class="rc">Within budget: nothing to reconcile.</p>`
+          : html`<p class="rc pending">${this.reconcileLeftOut === 'stopped' ? 'What it would take was not worked out: the run stopped first. Run again to see it.' : 'What it would take: being worked out…'}</p>`}
     </div></td></tr>`;
   }
 
@@ -335,7 +356,7 @@ export class ResultsTable extends LitElement {
     if (!r) return html`<p>No audit yet.</p>`;
     const counts = verdictCounts(r.galaxies);
     const w = this.win;
-    const cols = 4 + this.imfs.length;
+    const cols = 5 + this.imfs.length;
     const rows = [];
     for (let i = w.start; i < w.end; i++) rows.push(this.row(this.view[i], i));
     return html`
@@ -361,6 +382,7 @@ export class ResultsTable extends LitElement {
               const st = imfStyle(imf);
               return this.header(`imf:${imf}`, html`${mark(st.shape, st.color)}<span class="name">${imf}</span>`, `${citeImf(imf)}: median ε_req under ${imf}; the mark is hollow within budget, half filled strained, filled over budget`, 'imf');
             })}
+            ${this.header('draws', 'draws', COLUMN_EXPLAIN.draws)}
           </tr></thead>
           <tbody>
             <tr class="pad top" aria-hidden="true"><td colspan=${cols}></td></tr>

@@ -22,6 +22,11 @@ const rows = [ok(1, 'T-10', 9, 'strained', { a: 0.5, b: 0.1 }), ok(2, 'T-2', 7.5
 const all = new Set(VERDICT_KEYS);
 
 describe('results order', () => {
+  it('sorts by the Monte Carlo draws made (the galaxies that needed most first when descending), rejected rows last', () => {
+    const withDraws = rows.map((g, k) => (g.status === 'ok' ? ({ ...g, monte_carlo: { draws_made: [3000, 2000, 0, 5000, 2000][k] } } as unknown as GalaxyRow) : g));
+    expect(orderRows(withDraws, 'draws', -1, all).map((g) => g.id)).toEqual(['T-1', 'T-10', 'T-2', 'T-3', 'T-bad']);
+    expect(orderRows(withDraws, 'draws', 1, all).map((g) => g.id)).toEqual(['T-2', 'T-3', 'T-10', 'T-1', 'T-bad']);
+  });
   it('sorts by ε under one IMF, either way, with missing values (rejected, IMF not run) last', () => {
     expect(orderRows(rows, 'imf:b', -1, all).map((g) => g.id)).toEqual(['T-2', 'T-10', 'T-1', 'T-bad', 'T-3']);
     expect(orderRows(rows, 'imf:b', 1, all).map((g) => g.id)).toEqual(['T-1', 'T-10', 'T-2', 'T-bad', 'T-3']);

@@ -308,7 +308,16 @@ function mainDraws(ctx: AuditContext, g: GalaxyInput, seed: number, imfTables: r
 
 export type DrawStop = 'fixed' | 'settled' | 'maximum';
 
-export function auditGalaxy(ctx: AuditContext, g: GalaxyInput, index: number): GalaxyAudit {
+export interface GalaxyAuditOptions {
+  /**
+   * Whether to search what it would take to reconcile a galaxy in tension (default true). The page's first
+   * look leaves it out and asks for it next (the rest of the audit is the same, draw for draw); its
+   * `reconcile` is then empty whatever the verdict.
+   */
+  readonly reconcile?: boolean;
+}
+
+export function auditGalaxy(ctx: AuditContext, g: GalaxyInput, index: number, options: GalaxyAuditOptions = {}): GalaxyAudit {
   const { choices, halo } = ctx;
   const fb = halo.baryonFraction;
   const seed = idSeed(choices.seed, g.id);
@@ -347,7 +356,7 @@ export function auditGalaxy(ctx: AuditContext, g: GalaxyInput, index: number): G
     eddingtonShiftDex: h.eddington_shift_dex,
   });
   const reconcile =
-    h.verdict === 'within budget'
+    h.verdict === 'within budget' || options.reconcile === false
       ? []
       : reconcileGalaxy(
           {

@@ -6,7 +6,7 @@ import { makeCeilingTable, type CeilingTable } from './ceiling.js';
 import { makeCeilingUncertainty, type CeilingUncertainty } from './ceiling-uncertainty.js';
 import { normalizeChoices, validateChoices, type AuditChoices } from './choices.js';
 import { boxSigmaDm } from './cosmic-variance.js';
-import { auditGalaxy, type AuditContext, type GalaxyAudit } from './galaxy-audit.js';
+import { auditGalaxy, type AuditContext, type GalaxyAudit, type GalaxyAuditOptions } from './galaxy-audit.js';
 import { indexSample, type LineEnd, type RowProblem, type SampleFile, type SampleIndex, type SampleRow } from './sample.js';
 import { binBudget, type BinBudget, type BudgetMember } from './sample-budget.js';
 import type { Survey } from './survey.js';
@@ -159,7 +159,7 @@ export function firstNonFinite(v: unknown, path: string): string | undefined {
 }
 
 /** Audits one row of the sample (by its position, 0 for the first data row; `r` if already read). */
-export function auditRow(prep: PreparedAudit, index: number, r: SampleRow = prep.parsed.rowAt(index)): GalaxyRow {
+export function auditRow(prep: PreparedAudit, index: number, r: SampleRow = prep.parsed.rowAt(index), options: GalaxyAuditOptions = {}): GalaxyRow {
   const choices = prep.choices;
   const named = new Set(choices.surveys.map((s) => s.name));
   const base = { row: r.row, lines: r.lines, line_end: r.lineEnd, id: (r.raw.id ?? '').trim(), input: r.raw, survey: r.galaxy?.survey ?? choices.survey.name };
@@ -169,7 +169,7 @@ export function auditRow(prep: PreparedAudit, index: number, r: SampleRow = prep
   }
   let audit: GalaxyAudit;
   try {
-    audit = auditGalaxy(prep.ctx, r.galaxy!, r.row);
+    audit = auditGalaxy(prep.ctx, r.galaxy!, r.row, options);
   } catch (e) {
     // Whatever fails while computing one galaxy rejects that galaxy, never the run.
     const reason = e instanceof Error ? e.message : String(e);

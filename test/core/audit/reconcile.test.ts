@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { runAudit, type AuditChoices } from '../../../src/core/audit/index.js';
+import { auditRow, prepareAudit, runAudit, type AuditChoices } from '../../../src/core/audit/index.js';
 import { slopeImfName } from '../../../src/core/audit/reconcile.js';
 import { makeBackground } from '../../../src/core/cosmology/index.js';
 import { DEFAULT_CHOICES } from '../../../src/ui/default-choices.js';
@@ -107,5 +107,15 @@ describe('reconciliation: each reported change, applied, brings the median ε_re
     const r = runAudit(`${HEADER}\nOK-1,10.0,,,28,1.5,0.1,,,\n`, choices());
     expect(r.galaxies[0].verdict).toBe('within budget');
     expect(r.galaxies[0].reconcile).toEqual([]);
+  });
+  it('a first look (reconcile: false) is the whole audit, draw for draw, without the reconciliation; the page shows it before the whole', () => {
+    const csv = `${HEADER}\n${LIGHT}\n${MASS}\nOK-1,10.0,,,28,1.5,0.1,,,\n`;
+    const prep = prepareAudit(csv, choices());
+    const whole = [0, 1, 2].map((i) => auditRow(prep, i));
+    const first = [0, 1, 2].map((i) => auditRow(prep, i, undefined, { reconcile: false }));
+    expect(whole.slice(0, 2)).toEqual([light, mass]);
+    for (let i = 0; i < 3; i++) expect({ ...first[i], reconcile: whole[i].reconcile }).toEqual(whole[i]);
+    expect(first.map((g) => g.reconcile)).toEqual([[], [], []]);
+    expect(whole[0].reconcile!.length + whole[1].reconcile!.length).toBe(4);
   });
 });
