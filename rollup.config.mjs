@@ -30,8 +30,9 @@ const copyAssets = {
 };
 
 // The page reads CSV itself (src/ui/csv-text.ts); papaparse, which core modules it imports for their
-// tables import too, has no side effects the page needs, so it is left out of app.js when unused.
-const pageTreeshake = { moduleSideEffects: (id) => !/node_modules[\\/]papaparse[\\/]/.test(id) };
+// tables import too, has no side effects the page needs, so it is left out of app.js when unused. The same
+// holds for @stdlib's math functions (erfc is imported with the adaptive rule's text, used in the worker).
+const pageTreeshake = { moduleSideEffects: (id) => !/node_modules[\\/](papaparse|@stdlib)[\\/]/.test(id) };
 
 export default [
   { input: 'src/main.ts', output: { dir: 'public', entryFileNames: 'app.js', chunkFileNames: 'chunk-[name].js', format: 'es', sourcemap: true }, treeshake: pageTreeshake, plugins: [...plugins(), copyAssets] },

@@ -6,9 +6,32 @@ import { mkdirSync, writeFileSync } from 'node:fs';
 import { esbuildPlugin } from '@web/dev-server-esbuild';
 import { fromRollup } from '@web/dev-server-rollup';
 import rollupCommonjs from '@rollup/plugin-commonjs';
+import * as esbuild from 'esbuild';
 import { chromeLauncher } from '@web/test-runner-chrome';
 
 const commonjs = fromRollup(rollupCommonjs);
+
+/**
+ * @stdlib's math functions (erf, erfc, gamma) are CommonJS spread over many small packages, which a
+ * file-by-file conversion gets wrong; source-mode modules get each function as one ES module bundled by
+ * esbuild instead, with @stdlib's define-property module as the engine's own (as in rollup.config.mjs).
+ */
+const stdlibAsModules = {
+  name: 'stdlib-as-modules',
+  async serve(ctx) {
+    const m = /\/node_modules\/(@stdlib\/math-base-special-[a-z]+)\/lib\/index\.js$/.exec(ctx.path);
+    if (!m) return undefined;
+    const nativeDefineProperty = {
+      name: 'native-define-property',
+      setup: (b) => {
+        b.onResolve({ filter: /^@stdlib\/utils-define-property$/ }, () => ({ path: 'native-define-property', namespace: 'native' }));
+        b.onLoad({ filter: /.*/, namespace: 'native' }, () => ({ contents: 'module.exports = Object.defineProperty;', loader: 'js' }));
+      },
+    };
+    const out = await esbuild.build({ entryPoints: [`node_modules/${m[1]}/lib/index.js`], bundle: true, format: 'esm', platform: 'browser', write: false, plugins: [nativeDefineProperty] });
+    return { body: out.outputFiles[0].text, type: 'js' };
+  },
+};
 
 function countsReporter() {
   return {
@@ -45,6 +68,8 @@ export default {
     },
   ],
   plugins: [
+    // papaparse, a CommonJS package that source-mode modules import, converted file by file.
+    stdlibAsModules,
     commonjs({ include: ['**/node_modules/papaparse/**'], strictRequires: false }),
     esbuildPlugin({ ts: true, tsconfig: './tsconfig.json', target: 'es2022' }),
   ],

@@ -1,3 +1,4 @@
+import erfc from '@stdlib/math-base-special-erfc';
 import { DRAW_RULE_SPECS, specByKey } from './choice-specs.js';
 
 /**
@@ -42,21 +43,7 @@ export function medianErrorQuantiles(n: number): [number, number, number] {
   return [0.5 - d, 0.5, 0.5 + d];
 }
 
-/**
- * Complementary error function by the Chebyshev fit of Press et al. (1992, Numerical Recipes in C,
- * 2nd ed., §6.2, erfcc): fractional error below 1.2e-7 everywhere. Written here so that the page's
- * modules load this file without a CommonJS package.
- */
-function erfc(x: number): number {
-  const z = Math.abs(x);
-  const t = 1 / (1 + 0.5 * z);
-  const r =
-    t *
-    Math.exp(-z * z - 1.26551223 + t * (1.00002368 + t * (0.37409196 + t * (0.09678418 + t * (-0.18628806 + t * (0.27886807 + t * (-1.13520398 + t * (1.48851587 + t * (-0.82215223 + t * 0.17087277)))))))));
-  return x >= 0 ? r : 2 - r;
-}
-
-/** Standard normal CDF Φ(x) = erfc(−x/√2)/2 (relative error < 1.2e-7, also far in the lower tail). */
+/** Standard normal CDF Φ(x) = erfc(−x/√2)/2 (stdlib's erfc: accurate to rounding, also far in the lower tail). */
 export function normalCdf(x: number): number {
   return 0.5 * erfc(-x / Math.SQRT2);
 }
