@@ -336,9 +336,25 @@ export class BaryonAuditApp extends LitElement {
     );
   }
 
+  /** Derived state of the response on show: the last summary, the rows' problems, the figure models. */
   protected willUpdate(): void {
-    const md = this.ctl.response?.markdown;
-    if (md !== undefined) this.summaryShown = md;
+    const resp = this.ctl.response;
+    const result = resp?.result;
+    if (resp?.markdown !== undefined) this.summaryShown = resp.markdown;
+    if (this.problemCache.result !== result) {
+      const problems = result ? result.galaxies.flatMap((g) => g.errors) : [];
+      this.problemCache = { result, problems: keepSameProblems(this.problemCache.problems, problems) };
+    }
+    if (!result || !resp?.curves || !resp.points) this.figCache = undefined;
+    else {
+      const c = this.figCache;
+      if (!c || c.id !== resp.id || c.selected !== this.selected) {
+        // a first look and the whole audit that follows share an id: their figures are the same
+        const old = c && c.id === resp.id ? c.figs : undefined;
+        const figs = [old?.[0] ?? massRedshiftFigure(result, resp.curves, resp.points), old?.[1] ?? densityFigure(result), galaxyImfFigure(result, this.selected)];
+        this.figCache = { id: resp.id, selected: this.selected, figs };
+      }
+    }
   }
 
   protected updated(): void {
@@ -423,21 +439,8 @@ export class BaryonAuditApp extends LitElement {
   render() {
     const resp = this.ctl.response;
     const result = resp?.result;
-    if (this.problemCache.result !== result) {
-      const problems = result ? result.galaxies.flatMap((g) => g.errors) : [];
-      this.problemCache = { result, problems: keepSameProblems(this.problemCache.problems, problems) };
-    }
     const problems = this.problemCache.problems;
-    let figs: ChartModel[] = [];
-    if (result && resp?.curves && resp.points) {
-      const c = this.figCache;
-      if (c && c.id === resp.id && c.selected === this.selected) figs = c.figs;
-      else {
-        const old = c && c.id === resp.id ? c.figs : undefined;
-        figs = [old?.[0] ?? massRedshiftFigure(result, resp.curves, resp.points), old?.[1] ?? densityFigure(result), galaxyImfFigure(result, this.selected)];
-        this.figCache = { id: resp.id, selected: this.selected, figs };
-      }
-    }
+    const figs = this.figCache?.figs ?? [];
     const invalid = Object.values(this.invalid).flat();
     const stale = !!result && invalid.length > 0;
     const pending = !!result && !stale && !this.upToDate();
