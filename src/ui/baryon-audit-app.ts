@@ -259,8 +259,8 @@ export class BaryonAuditApp extends LitElement {
   private schedule(delay = 0): void {
     clearTimeout(this.timer);
     const go = (): void => {
+      void this.controller?.run(this.csv, this.choices); // the request goes out first; the saved state after it
       save(localStorage, makeRecord(this.csv, this.choices));
-      void this.controller?.run(this.csv, this.choices);
     };
     if (delay > 0) this.timer = setTimeout(go, delay);
     else go();
