@@ -1,5 +1,6 @@
 import { quantilesByBuckets } from '../numeric/select.js';
 import type { HaloModel } from '../halos/halo-model.js';
+import { GRID_DLOG10M, lnMassFunctionGrid } from '../halos/mass-function-grid.js';
 import type { MassToLightTable } from '../stars/mass-to-light.js';
 import { eddingtonFirstOrderShiftDex, eddingtonPosterior, type LnPrior } from './eddington.js';
 import { medianErrorQuantiles, pClassChange } from './draw-rule.js';
@@ -77,8 +78,8 @@ function hostPrior(e: EddingtonInputs, eps: number): LnPrior {
   return Object.assign(f, { onGrid: (x0: number, h: number, n: number, out: Float64Array) => lnDn.onGrid(x0, h, n, out, lfe) });
 }
 
-/** Node spacing of the per-galaxy table of ln dn/dlnM, dex. */
-const PRIOR_STEP_DEX = 0.0025;
+/** Node spacing of the per-galaxy table of ln dn/dlnM, dex: the mass nodes of the shared (z, log10 M) grid. */
+const PRIOR_STEP_DEX = GRID_DLOG10M;
 
 type LnMassFunction = ((lh: number) => number) & {
   /** out[i] = f(x0 + i h − shift), the same values as f, the nodes filled first. */
@@ -86,12 +87,15 @@ type LnMassFunction = ((lh: number) => number) & {
 };
 
 /**
- * ln dn/dlnM(10^lh, z) at the galaxy's redshift, −∞ outside the σ table: the halo model's own values on
- * nodes 0.0025 dex apart (computed on first use, so a galaxy evaluates the mass function at a few hundred
- * masses instead of at every point of every posterior grid), read with 4-point Lagrange interpolation
- * (error ≈ (3/128) h⁴ |f⁗|, below 1e-12 in the posterior median here; common practice, no source). Linear in the
- * first and last node interval. One table per EddingtonInputs object, i.e. per galaxy: the last one is kept,
- * in buffers reused from galaxy to galaxy (a galaxy's IMFs are done one after another).
+ * ln dn/dlnM(10^lh, z) at the galaxy's redshift, −∞ outside the σ table, on nodes 0.0025 dex apart
+ * (filled on first use, so a galaxy reads a few hundred masses instead of every point of every posterior
+ * grid), read with 4-point Lagrange interpolation (error ≈ (3/128) h⁴ |f⁗|, below 1e-12 in the posterior
+ * median here; common practice, no source). Linear in the first and last node interval. Each node is the
+ * run's shared (z, log10 M) table of the mass function read at the galaxy's z (halos/mass-function-grid.ts:
+ * 4-point Lagrange in z on 0.05 steps, ≤ 2.5e-6 from the direct ln dn/dlnM), so the mass function itself
+ * is evaluated once per table node for the whole sample, not per galaxy. One node table per
+ * EddingtonInputs object, i.e. per galaxy: the last one is kept, in buffers reused from galaxy to galaxy
+ * (a galaxy's IMFs are done one after another).
  */
 let priorFor: { e: EddingtonInputs; f: LnMassFunction } | undefined;
 /** Node values and the generation that filled each (a node is set when its stamp is the current generation), reused from galaxy to galaxy. */
@@ -111,11 +115,10 @@ function lnMassFunctionAt(e: EddingtonInputs): LnMassFunction {
   const nodes = nodeBuf;
   const stamp = nodeStamp;
   const gen = ++generation;
+  const shared = lnMassFunctionGrid(e.halo);
   const node = (i: number): number => {
     if (stamp[i] !== gen) {
-      // the end nodes sit just inside the table so that the mass function is defined there
-      const lh = Math.min(Math.max(lo + i * PRIOR_STEP_DEX, lo + 1e-9), hi - 1e-9);
-      nodes[i] = Math.log(e.halo.dndlnM(10 ** lh, e.z));
+      nodes[i] = shared.nodeAt(e.z, i);
       stamp[i] = gen;
     }
     return nodes[i];
