@@ -298,6 +298,8 @@ function mainDraws(ctx: AuditContext, g: GalaxyInput, seed: number, imfTables: r
   return {
     d,
     stop,
+    // the looks' vectors of each IMF (imfStatistics takes log10 M⋆ and ε_req from them); none with fixedDraws
+    looks: fixed ? undefined : looks,
     valid: validBuf.subarray(0, nv),
     gx: grid.x.subarray(0, nv),
     gy: grid.y.subarray(0, nv),
@@ -318,7 +320,7 @@ export function auditGalaxy(ctx: AuditContext, g: GalaxyInput, index: number): G
   const { headline, imfs } = headlineAndCompared(g, choices);
   const tableOf = (imf: string): MassToLightTable => ctx.cache.table(imf, g.z, ctx.sfh);
   const refTable = g.imfRef ? tableOf(g.imfRef) : undefined;
-  const { d, stop, valid, gx, gy, base, logCeil } = mainDraws(ctx, g, seed, imfs.map(tableOf), refTable, ceil);
+  const { d, stop, looks, valid, gx, gy, base, logCeil } = mainDraws(ctx, g, seed, imfs.map(tableOf), refTable, ceil);
   const n = d.n;
   if (d.excluded) notes.push(`${d.excluded} of ${n} draws put the observed band outside the model's rest range (Lyman-α–1 μm) and were left out`);
   if (valid.length < Math.max(20, 0.01 * n)) throw new RangeError(`row ${g.row} (${g.id}): almost every redshift draw puts the band outside the model's rest range (Lyman-α–1 μm)`);
@@ -333,7 +335,7 @@ export function auditGalaxy(ctx: AuditContext, g: GalaxyInput, index: number): G
   const sigmaDex = g.log10Mstar !== undefined ? g.log10MstarErr : 0.4 * g.magErr;
   const ed = { halo, z: g.z, sigmaDex, epsRef: choices.epsRef };
   const stats: Record<string, ImfStatistics> = {};
-  for (const imf of imfs) stats[imf] = imfStatistics(tableOf(imf), shared, ed, imf === headline);
+  imfs.forEach((imf, j) => (stats[imf] = imfStatistics(tableOf(imf), shared, ed, imf === headline, looks?.[j])));
   const imfResults: Record<string, ImfResult> = Object.fromEntries(imfs.map((i) => [i, stats[i].result]));
   const h = imfResults[headline];
   const checks = h.verdict !== 'within budget' ? redshiftChecks(ctx, g, seed, tableOf(headline), refTable, notes) : [];

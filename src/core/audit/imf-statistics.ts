@@ -208,10 +208,18 @@ function localSlope(halo: HaloModel, m: number, z: number): number {
   return a;
 }
 
-/** The statistics of one IMF over the shared draws (everything in log10: quantiles commute with 10^x). */
-export function imfStatistics(tab: MassToLightTable, d: SharedDraws, ed: EddingtonInputs, wantFormedMedian: boolean): ImfStatistics {
+/**
+ * The statistics of one IMF over the shared draws (everything in log10: quantiles commute with 10^x).
+ * @param look the adaptive rule's vectors of this IMF over the same draws (medianLook with this table):
+ *   log10 M⋆ and log10 ε_req are then taken from it (extended to all d.n draws first) instead of being
+ *   computed again; the same numbers, so the statistics are bit for bit those without it.
+ */
+export function imfStatistics(tab: MassToLightTable, d: SharedDraws, ed: EddingtonInputs, wantFormedMedian: boolean, look?: LookState): ImfStatistics {
   const nv = d.n;
-  const [lm, leps, lepsCv, lr, lf] = scratchVectors(nv);
+  const [lmOwn, lepsOwn, lepsCv, lr, lf] = scratchVectors(nv);
+  if (look) extendLook(tab, d.base, d.gx, d.gy, d.logCeil, nv, look);
+  const lm = look ? look.lm : lmOwn;
+  const leps = look ? look.le : lepsOwn;
   const acc = d.logAccretedBaryons;
   const lratio = acc ? lr : undefined;
   const lformed = acc && wantFormedMedian ? lf : undefined;
@@ -240,22 +248,33 @@ export function imfStatistics(tab: MassToLightTable, d: SharedDraws, ed: Eddingt
   const logCeil = d.logCeil;
   const logCeilCv = d.logCeilCv;
   const cosmo = d.cosmoOffset;
+  if (look) {
+    ({ lmMin: vMin, lmMax: vMax, leMin: eMin, leMax: eMax } = look.range);
+  }
+  const own = !look;
   for (let i = 0; i < nv; i++) {
-    // the table's own bilinear rule (MassToLightTable.logMassToLightAt), term for term, at the shared cell
-    const c = cell[i];
     const a = ageIndex[i];
     const tx = txs[i];
-    const ty = tys[i];
-    const lnu = (1 - tx) * ((1 - ty) * L[c] + ty * L[c + 1]) + tx * ((1 - ty) * L[c + nLam] + ty * L[c + nLam + 1]);
     const surv = (1 - tx) * S[a] + tx * S[a + 1];
-    const v = base[i] + (surv - lnu);
-    lm[i] = v;
-    if (v < vMin) vMin = v;
-    if (v > vMax) vMax = v;
-    const e = v - logCeil[i];
-    leps[i] = e;
-    if (e < eMin) eMin = e;
-    if (e > eMax) eMax = e;
+    let v: number;
+    let e: number;
+    if (own) {
+      // the table's own bilinear rule (MassToLightTable.logMassToLightAt), term for term, at the shared cell
+      const c = cell[i];
+      const ty = tys[i];
+      const lnu = (1 - tx) * ((1 - ty) * L[c] + ty * L[c + 1]) + tx * ((1 - ty) * L[c + nLam] + ty * L[c + nLam + 1]);
+      v = base[i] + (surv - lnu);
+      lm[i] = v;
+      if (v < vMin) vMin = v;
+      if (v > vMax) vMax = v;
+      e = v - logCeil[i];
+      leps[i] = e;
+      if (e < eMin) eMin = e;
+      if (e > eMax) eMax = e;
+    } else {
+      v = lm[i];
+      e = leps[i];
+    }
     const ecv = v - logCeilCv[i];
     lepsCv[i] = ecv;
     if (ecv < cMin) cMin = ecv;
@@ -337,6 +356,16 @@ export function makeLookState(lm: Float64Array, le: Float64Array): LookState {
  * Monte Carlo errors over all n.
  */
 export function medianLook(tab: MassToLightTable, base: Float64Array, gx: Float64Array, gy: Float64Array, logCeil: Float64Array, n: number, look: LookState): { logMstarErrDex: number; logEpsMedian: number; logEpsErrDex: number } {
+  extendLook(tab, base, gx, gy, logCeil, n, look);
+  const { lm, le, range: r } = look;
+  const qs = medianErrorQuantiles(n);
+  const [ma, , mb] = quantilesByBuckets(lm, n, qs, { min: r.lmMin, max: r.lmMax });
+  const [ea, em, eb] = quantilesByBuckets(le, n, qs, { min: r.leMin, max: r.leMax });
+  return { logMstarErrDex: 0.5 * (mb - ma), logEpsMedian: em, logEpsErrDex: 0.5 * (eb - ea) };
+}
+
+/** A look's vectors extended from look.n to n valid draws (logMassToLightAt: the same numbers as imfStatistics' own rule), with their ranges. */
+function extendLook(tab: MassToLightTable, base: Float64Array, gx: Float64Array, gy: Float64Array, logCeil: Float64Array, n: number, look: LookState): void {
   const { lm, le, range: r } = look;
   for (let i = look.n; i < n; i++) {
     const v = base[i] + tab.logMassToLightAt(gx[i], gy[i]);
@@ -348,9 +377,5 @@ export function medianLook(tab: MassToLightTable, base: Float64Array, gx: Float6
     if (e < r.leMin) r.leMin = e;
     if (e > r.leMax) r.leMax = e;
   }
-  look.n = n;
-  const qs = medianErrorQuantiles(n);
-  const [ma, , mb] = quantilesByBuckets(lm, n, qs, { min: r.lmMin, max: r.lmMax });
-  const [ea, em, eb] = quantilesByBuckets(le, n, qs, { min: r.leMin, max: r.leMax });
-  return { logMstarErrDex: 0.5 * (mb - ma), logEpsMedian: em, logEpsErrDex: 0.5 * (eb - ea) };
+  look.n = Math.max(look.n, n);
 }

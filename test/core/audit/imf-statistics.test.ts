@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { imfStatistics, type SharedDraws } from '../../../src/core/audit/imf-statistics.js';
+import { imfStatistics, makeLookState, medianLook, type SharedDraws } from '../../../src/core/audit/imf-statistics.js';
 import { eddingtonPosterior } from '../../../src/core/audit/eddington.js';
 import { logSurvivingAt } from '../../../src/core/audit/time-budget.js';
 import { PLANCK18 } from '../../../src/core/cosmology/index.js';
@@ -71,4 +71,13 @@ describe('imfStatistics: the shared-cell M/L rule, bucket quantiles and tabulate
       expect(r.eddington_shift_dex).toBeGreaterThan(0);
     });
   }
+  it("with the adaptive rule's look vectors (medianLook at 2000 of the 3000 draws, then extended) the statistics are the same, bit for bit", () => {
+    const tab = cache.table('kroupa', 9, sfh);
+    const ed = { halo, z: 9.0137, sigmaDex: 0.1, epsRef: 0.3 };
+    const look = makeLookState(new Float64Array(n), new Float64Array(n));
+    medianLook(tab, d.base, d.gx, d.gy, d.logCeil, 2000, look);
+    const withLook = imfStatistics(tab, d, ed, true, look);
+    expect(look.n).toBe(n);
+    expect(withLook).toEqual(imfStatistics(tab, d, ed, true));
+  });
 });
