@@ -1,4 +1,5 @@
-import { quantilesByBuckets, quantilesBySelection } from '../numeric/select.js';
+import { quantilesBySelection } from '../numeric/select.js';
+import { bucketQuantiles } from '../numeric/quantile-buckets.js';
 import { makeScratch, type Scratch } from '../numeric/scratch.js';
 import type { HaloModel } from '../halos/halo-model.js';
 import type { PopulationCache } from '../stars/population-cache.js';
@@ -240,7 +241,7 @@ function timeBudgetOf(ctx: AuditContext, g: GalaxyInput, head: ImfStatistics, ac
     ratio: r.time_budget_ratio_median,
     p_ratio_over_1: r.p_time_budget_over!,
     formed_mass_msun: head.formedMassMedianMsun,
-    accreted_baryons_msun: 10 ** quantilesByBuckets(acc, acc.length, [0.5])[0],
+    accreted_baryons_msun: 10 ** bucketQuantiles(acc, acc.length, [0.5])[0],
     method:
       'per draw: stellar mass formed M*/(1 − R) (R of the population model at the drawn age) over f_b × the mass the ceiling halo accretes in ' +
       `[max(t(z) − age, t(z = ${fz})), t(z)] on its mean history (Fakhouri, Ma & Boylan-Kolchin 2010, integrated along M_h(z))`,
