@@ -24,7 +24,11 @@ export interface Buckets {
   counts: Int32Array;
 }
 
-/** Most buckets (~5 values per bucket for 20 000 values); n/4 for shorter vectors, at least 64. */
+/**
+ * Most buckets; below that ~n/16 of them (a power of two, at least 64): ~16 values a bucket, so the
+ * per-bucket work (clearing, prefix sums) stays small beside the per-value passes, and the selection
+ * among the few gathered buckets stays cheap (15–20% faster than n/4 at 2 000 and 20 000 values).
+ */
 const MAX_BUCKETS = 4096;
 /** Below this many values a copy and a selection cost less than the buckets. */
 const MIN_VALUES = 512;
@@ -40,7 +44,7 @@ export function makeBuckets(): Buckets {
 export function layoutBuckets(bk: Buckets, n: number, min: number, max: number): boolean {
   if (n < MIN_VALUES || !(min > -Infinity && max < Infinity && max > min)) return false;
   let nb = 64;
-  while (nb < MAX_BUCKETS && nb * 4 < n) nb *= 2;
+  while (nb < MAX_BUCKETS && nb * 16 < n) nb *= 2;
   if (bk.of.length < n) bk.of = new Uint16Array(Math.max(n, 1024));
   bk.nb = nb;
   bk.top = nb - 1;
