@@ -1,5 +1,5 @@
 import { quantilesBySelection } from '../numeric/select.js';
-import { bucketQuantiles } from '../numeric/quantile-buckets.js';
+import { bucketQuantiles, makeBuckets, type Buckets } from '../numeric/quantile-buckets.js';
 import { makeScratch, type Scratch } from '../numeric/scratch.js';
 import type { HaloModel } from '../halos/halo-model.js';
 import type { PopulationCache } from '../stars/population-cache.js';
@@ -253,6 +253,8 @@ function timeBudgetOf(ctx: AuditContext, g: GalaxyInput, head: ImfStatistics, ac
  * them; the fixed-redshift checks and the what-it-would-take search draw into arrays of their own).
  */
 const mainScratch = makeScratch();
+/** The looks' buckets per compared IMF, reused from galaxy to galaxy like mainScratch. */
+const lookBuckets: [Buckets, Buckets][] = [];
 
 /**
  * The galaxy's main draws: all `draws` with fixedDraws, else block by block under the adaptive rule
@@ -270,7 +272,8 @@ function mainDraws(ctx: AuditContext, g: GalaxyInput, seed: number, imfTables: r
   const logCeilBuf = mainScratch.f64('ceiling.log', nMax);
   const lfb = Math.log10(halo.baryonFraction);
   const zLook = fixed ? Infinity : normalQuantile(1 - P_CLASS_CHANGE_MAX / looksFor(nMax));
-  const looks = imfTables.map((_, j) => makeLookState(mainScratch.f64(`look.lm.${j}`, nMax), mainScratch.f64(`look.le.${j}`, nMax)));
+  while (lookBuckets.length < imfTables.length) lookBuckets.push([makeBuckets(), makeBuckets()]);
+  const looks = imfTables.map((_, j) => makeLookState(mainScratch.f64(`look.lm.${j}`, nMax), mainScratch.f64(`look.le.${j}`, nMax), lookBuckets[j]));
   const precision = drawPrecisionOf(choices);
   let nv = 0;
   let stop: DrawStop = fixed ? 'fixed' : 'maximum';

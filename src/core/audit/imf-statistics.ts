@@ -1,4 +1,4 @@
-import { bucketQuantiles, layoutBuckets, makeBuckets, quantilesFromBuckets, type Buckets } from '../numeric/quantile-buckets.js';
+import { bucketQuantiles, fillBuckets, layoutBuckets, makeBuckets, quantilesFromBuckets, type Buckets } from '../numeric/quantile-buckets.js';
 import type { HaloModel } from '../halos/halo-model.js';
 import { GRID_DLOG10M, lnMassFunctionGrid } from '../halos/mass-function-grid.js';
 import type { MassToLightTable } from '../stars/mass-to-light.js';
@@ -314,10 +314,12 @@ export function imfStatistics(tab: MassToLightTable, d: SharedDraws, ed: Eddingt
   // the look's own ranges, or the M/L table's corners over the draws' cells plus the shared vectors' ranges.
   const r = w.ranges;
   const t = tableBounds(tab, r);
+  // The look's last buckets, when it was taken over all these draws, are read again as they are.
+  const kept = look !== undefined && look.bucketsOf === nv;
   const vLo = look ? look.range.lmMin : r.baseLo + t.dLo;
   const vHi = look ? look.range.lmMax : r.baseHi + t.dHi;
-  const useM = layoutBuckets(bkM, nv, vLo, vHi);
-  const useE = layoutBuckets(bkE, nv, look ? look.range.leMin : vLo - r.ceilHi, look ? look.range.leMax : vHi - r.ceilLo);
+  const useM = !kept && layoutBuckets(bkM, nv, vLo, vHi);
+  const useE = !kept && layoutBuckets(bkE, nv, look ? look.range.leMin : vLo - r.ceilHi, look ? look.range.leMax : vHi - r.ceilLo);
   const useC = layoutBuckets(bkC, nv, vLo - r.cvHi, vHi - r.cvLo);
   const fLo = r.baseLo + t.nLo;
   const fHi = r.baseHi + t.nHi;
@@ -371,8 +373,8 @@ export function imfStatistics(tab: MassToLightTable, d: SharedDraws, ed: Eddingt
   /** The quantiles of a vector from the counts of this loop, or bucketed on its own where they could not be laid out. */
   const quantiles = (x: Float64Array, qs: readonly number[], bk: Buckets, made: boolean): number[] => (made ? quantilesFromBuckets(x, nv, qs, bk) : bucketQuantiles(x, nv, qs));
   const [qa, , qb] = medianErrorQuantiles(nv);
-  const [lm16, lmMed, lm84, lmA, lmB] = quantiles(lm, [0.16, 0.5, 0.84, qa, qb], bkM, useM);
-  const [le05, leMed, le95, leA, leB] = quantiles(leps, [0.05, 0.5, 0.95, qa, qb], bkE, useE);
+  const [lm16, lmMed, lm84, lmA, lmB] = kept ? quantilesFromBuckets(lm, nv, [0.16, 0.5, 0.84, qa, qb], look.bkLm) : quantiles(lm, [0.16, 0.5, 0.84, qa, qb], bkM, useM);
+  const [le05, leMed, le95, leA, leB] = kept ? quantilesFromBuckets(leps, nv, [0.05, 0.5, 0.95, qa, qb], look.bkLe) : quantiles(leps, [0.05, 0.5, 0.95, qa, qb], bkE, useE);
   const leErr = 0.5 * (leB - leA);
   const med = 10 ** leMed;
   const medCv = 10 ** quantiles(lepsCv, [0.5], bkC, useC)[0];
@@ -416,11 +418,17 @@ export interface LookState {
   n: number;
   readonly lm: Float64Array;
   readonly le: Float64Array;
+  /** The buckets of lm and le at the last look, and the number of draws they hold (−1: none). */
+  readonly bkLm: Buckets;
+  readonly bkLe: Buckets;
+  bucketsOf: number;
   range: { lmMin: number; lmMax: number; leMin: number; leMax: number };
 }
 
-export function makeLookState(lm: Float64Array, le: Float64Array): LookState {
-  return { n: 0, lm, le, range: { lmMin: Infinity, lmMax: -Infinity, leMin: Infinity, leMax: -Infinity } };
+/** @param buckets two Buckets (makeBuckets) for lm and le, reusable from galaxy to galaxy; fresh ones when absent. */
+export function makeLookState(lm: Float64Array, le: Float64Array, buckets?: readonly [Buckets, Buckets]): LookState {
+  const [bkLm, bkLe] = buckets ?? [makeBuckets(), makeBuckets()];
+  return { n: 0, lm, le, bkLm, bkLe, bucketsOf: -1, range: { lmMin: Infinity, lmMax: -Infinity, leMin: Infinity, leMax: -Infinity } };
 }
 
 /**
@@ -432,8 +440,14 @@ export function medianLook(tab: MassToLightTable, base: Float64Array, gx: Float6
   extendLook(tab, base, gx, gy, logCeil, n, look);
   const { lm, le, range: r } = look;
   const qs = medianErrorQuantiles(n);
-  const [ma, , mb] = bucketQuantiles(lm, n, qs, { min: r.lmMin, max: r.lmMax });
-  const [ea, em, eb] = bucketQuantiles(le, n, qs, { min: r.leMin, max: r.leMax });
+  // the buckets are kept (imfStatistics reads them again when the draws stop here)
+  const okM = layoutBuckets(look.bkLm, n, r.lmMin, r.lmMax);
+  const okE = layoutBuckets(look.bkLe, n, r.leMin, r.leMax);
+  if (okM) fillBuckets(lm, n, look.bkLm);
+  if (okE) fillBuckets(le, n, look.bkLe);
+  look.bucketsOf = okM && okE ? n : -1;
+  const [ma, , mb] = okM ? quantilesFromBuckets(lm, n, qs, look.bkLm) : bucketQuantiles(lm, n, qs, { min: r.lmMin, max: r.lmMax });
+  const [ea, em, eb] = okE ? quantilesFromBuckets(le, n, qs, look.bkLe) : bucketQuantiles(le, n, qs, { min: r.leMin, max: r.leMax });
   return { logMstarErrDex: 0.5 * (mb - ma), logEpsMedian: em, logEpsErrDex: 0.5 * (eb - ea) };
 }
 

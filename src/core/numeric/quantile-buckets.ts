@@ -55,6 +55,8 @@ export function layoutBuckets(bk: Buckets, n: number, min: number, max: number):
 }
 
 const start = new Int32Array(MAX_BUCKETS + 1);
+/** The write cursor + 1 of each wanted bucket (0: not wanted). */
+const cursor = new Int32Array(MAX_BUCKETS + 1);
 const offset = new Int32Array(MAX_BUCKETS + 1);
 let gathered = new Float64Array(0);
 const wanted: number[] = [];
@@ -71,11 +73,12 @@ function bucketOfRank(r: number, nb: number): number {
   return lo;
 }
 
-/** The quantiles qs of the first n values of a, from their buckets (counts are left changed). */
+/** The quantiles qs of the first n values of a, from their buckets (left as they are, so they can be read again). */
 export function quantilesFromBuckets(a: Float64Array, n: number, qs: readonly number[], bk: Buckets): number[] {
-  const { nb, of, counts } = bk;
+  const { nb, of } = bk;
   start[0] = 0;
-  for (let b = 0; b < nb; b++) start[b + 1] = start[b] + counts[b];
+  for (let b = 0; b < nb; b++) start[b + 1] = start[b] + bk.counts[b];
+  const counts = cursor;
   wanted.length = 0;
   for (const q of qs) {
     const h = (n - 1) * q;
@@ -83,7 +86,7 @@ export function quantilesFromBuckets(a: Float64Array, n: number, qs: readonly nu
     wanted.push(lo);
     if (h !== lo && lo + 1 < n) wanted.push(lo + 1);
   }
-  // each wanted bucket gets a block of the gather buffer; counts[] becomes its write cursor + 1 (0: not wanted)
+  // each wanted bucket gets a block of the gather buffer and a write cursor
   counts.fill(0, 0, nb + 1);
   let total = 0;
   for (const r of wanted) {
@@ -123,8 +126,7 @@ const pair = new Int32Array(MAX_BUCKETS + 1);
 
 /**
  * The quantiles qs of the first n values of a (not reordered), bucketed here over `range` (bounds the
- * caller kept; the vector's own range when absent). The bucket pass counts even and odd values in two
- * tables, so that runs of values in one bucket do not wait on each other's increment. Falls back to
+ * caller kept; the vector's own range when absent) by fillBuckets. Falls back to
  * quantilesBySelection on a copy for short vectors and for ±Infinity. Bit for bit quantilesBySelection.
  */
 export function bucketQuantiles(a: Float64Array, n: number, qs: readonly number[], range?: { readonly min: number; readonly max: number }): number[] {
@@ -142,9 +144,18 @@ export function bucketQuantiles(a: Float64Array, n: number, qs: readonly number[
   }
   if (n >= MIN_VALUES && min === max && min > -Infinity && max < Infinity) return qs.map(() => min);
   if (!layoutBuckets(own, n, min, max)) return quantilesBySelection(a.slice(0, n), qs);
-  const { of, counts, top, scale } = own;
-  const lo = own.min;
-  pair.fill(0, 0, own.nb + 1);
+  fillBuckets(a, n, own);
+  return quantilesFromBuckets(a, n, qs, own);
+}
+
+/**
+ * Puts the first n values of a into buckets laid out by layoutBuckets, counting even and odd values in
+ * two tables so that runs of values in one bucket do not wait on each other's increment.
+ */
+export function fillBuckets(a: Float64Array, n: number, bk: Buckets): void {
+  const { of, counts, top, scale } = bk;
+  const lo = bk.min;
+  pair.fill(0, 0, bk.nb + 1);
   let i = 0;
   for (; i + 1 < n; i += 2) {
     const v = a[i];
@@ -168,6 +179,5 @@ export function bucketQuantiles(a: Float64Array, n: number, qs: readonly number[
     of[i] = b;
     counts[b]++;
   }
-  for (let b = 0; b < own.nb; b++) counts[b] += pair[b];
-  return quantilesFromBuckets(a, n, qs, own);
+  for (let b = 0; b < bk.nb; b++) counts[b] += pair[b];
 }

@@ -71,7 +71,7 @@ describe('imfStatistics: the shared-cell M/L rule, bucket quantiles and tabulate
       expect(r.eddington_shift_dex).toBeGreaterThan(0);
     });
   }
-  it("with the adaptive rule's look vectors (medianLook at 2000 of the 3000 draws, then extended) the statistics are the same, bit for bit", () => {
+  it("with the adaptive rule's look vectors (medianLook at 2000 of the 3000 draws, then extended; or at all 3000, its buckets kept) the statistics are the same, bit for bit", () => {
     const tab = cache.table('kroupa', 9, sfh);
     const ed = { halo, z: 9.0137, sigmaDex: 0.1, epsRef: 0.3 };
     const look = makeLookState(new Float64Array(n), new Float64Array(n));
@@ -79,5 +79,10 @@ describe('imfStatistics: the shared-cell M/L rule, bucket quantiles and tabulate
     const withLook = imfStatistics(tab, d, ed, true, look);
     expect(look.n).toBe(n);
     expect(withLook).toEqual(imfStatistics(tab, d, ed, true));
+    // a look over all the draws: its buckets are read again as they are
+    const full = makeLookState(new Float64Array(n), new Float64Array(n));
+    medianLook(tab, d.base, d.gx, d.gy, d.logCeil, n, full);
+    expect(full.bucketsOf).toBe(n);
+    expect(imfStatistics(tab, d, ed, true, full)).toEqual(imfStatistics(tab, d, ed, true));
   });
 });
