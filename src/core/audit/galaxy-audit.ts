@@ -124,6 +124,13 @@ function drawGrid(g: GalaxyInput, d: GalaxyDraws, valid: ArrayLike<number>, grid
 /** drawGrid for the valid draws from..to − 1, into the given arrays (the earlier entries are kept). */
 function fillGrid(g: GalaxyInput, d: GalaxyDraws, valid: ArrayLike<number>, from: number, to: number, grid: MassToLightTable, ref: MassToLightTable | undefined, out: { x: Float64Array; y: Float64Array; base: Float64Array }): void {
   const { x, y, base } = out;
+  // the table's gridPositionLog written out (the same expressions), without an array per draw
+  const la0 = grid.log10AgeMin;
+  const fa = (grid.nAge - 1) / (grid.log10AgeMax - la0);
+  const ll0 = grid.log10LamMin;
+  const fl = (grid.nLam - 1) / (grid.log10LamMax - ll0);
+  const xTop = grid.nAge - 1;
+  const yTop = grid.nLam - 1;
   for (let i = from; i < to; i++) {
     const k = valid[i];
     if (g.log10Mstar !== undefined) {
@@ -132,9 +139,8 @@ function fillGrid(g: GalaxyInput, d: GalaxyDraws, valid: ArrayLike<number>, from
       y[i] = b;
       base[i] = rescaleBase(d.log10MassRef[k], ref!, a, b);
     } else {
-      const [a, b] = grid.gridPositionLog(d.log10AgeMyr[k], d.log10LambdaRestUm[k]);
-      x[i] = a;
-      y[i] = b;
+      x[i] = Math.min(Math.max((d.log10AgeMyr[k] - la0) * fa, 0), xTop);
+      y[i] = Math.min(Math.max((d.log10LambdaRestUm[k] - ll0) * fl, 0), yTop);
       base[i] = d.log10Lnu[k];
     }
   }
