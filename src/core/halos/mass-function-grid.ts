@@ -32,6 +32,10 @@ export const GRID_DZ = 0.05;
 /** Node spacing in log10 M, dex. */
 export const GRID_DLOG10M = 0.0025;
 
+/** Mass nodes per allocated block of a column. */
+const BLOCK_BITS = 8;
+const BLOCK = 1 << BLOCK_BITS;
+
 const cache = new WeakMap<HaloModel, LnMassFunctionGrid>();
 
 export function lnMassFunctionGrid(halo: HaloModel): LnMassFunctionGrid {
@@ -41,22 +45,24 @@ export function lnMassFunctionGrid(halo: HaloModel): LnMassFunctionGrid {
   const lo = lm[0];
   const hi = lm[lm.length - 1];
   const nM = Math.floor((hi - lo) / GRID_DLOG10M) + 1;
-  /** Columns per z node, NaN = not computed yet. */
-  const columns: Float64Array[] = [];
+  /**
+   * Per z node, the mass nodes in blocks of BLOCK, allocated when first touched (NaN = not computed yet):
+   * a sample's galaxies touch a few dex of mass per redshift, so a column holds ~10 kB, not all 55 kB.
+   */
+  const columns: (Float64Array | undefined)[][] = [];
   const direct = (z: number, lgM: number): number => Math.log(halo.dndlnM(10 ** lgM, z));
-  const column = (j: number): Float64Array => {
-    let c = columns[j];
-    if (!c) {
-      c = new Float64Array(nM).fill(Number.NaN);
-      columns[j] = c;
+  const node = (j: number, i: number): number => {
+    const col = (columns[j] ??= []);
+    let blk = col[i >> BLOCK_BITS];
+    if (!blk) {
+      blk = new Float64Array(1 << BLOCK_BITS).fill(Number.NaN);
+      col[i >> BLOCK_BITS] = blk;
     }
-    return c;
-  };
-  const node = (c: Float64Array, j: number, i: number): number => {
-    let v = c[i];
+    const k = i & (BLOCK - 1);
+    let v = blk[k];
     if (v !== v) {
       v = direct(j * GRID_DZ, lo + i * GRID_DLOG10M);
-      c[i] = v;
+      blk[k] = v;
     }
     return v;
   };
@@ -68,10 +74,10 @@ export function lnMassFunctionGrid(halo: HaloModel): LnMassFunctionGrid {
     if (!(j >= 1 && i >= 1 && i <= nM - 2)) return directNode(z, i);
     const u = tz - j;
     const s =
-      (-u * (u - 1) * (u - 2) * node(column(j - 1), j - 1, i)) / 6 +
-      ((u + 1) * (u - 1) * (u - 2) * node(column(j), j, i)) / 2 -
-      ((u + 1) * u * (u - 2) * node(column(j + 1), j + 1, i)) / 2 +
-      ((u + 1) * u * (u - 1) * node(column(j + 2), j + 2, i)) / 6;
+      (-u * (u - 1) * (u - 2) * node(j - 1, i)) / 6 +
+      ((u + 1) * (u - 1) * (u - 2) * node(j, i)) / 2 -
+      ((u + 1) * u * (u - 2) * node(j + 1, i)) / 2 +
+      ((u + 1) * u * (u - 1) * node(j + 2, i)) / 6;
     return Number.isFinite(s) ? s : directNode(z, i);
   };
   const grid: LnMassFunctionGrid = {
