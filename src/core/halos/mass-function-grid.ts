@@ -47,7 +47,7 @@ export function lnMassFunctionGrid(halo: HaloModel): LnMassFunctionGrid {
   const nM = Math.floor((hi - lo) / GRID_DLOG10M) + 1;
   /**
    * Per z node, the mass nodes in blocks of BLOCK, allocated when first touched (NaN = not computed yet):
-   * a sample's galaxies touch a few dex of mass per redshift, so a column holds ~10 kB, not all 55 kB.
+   * a sample's galaxies touch a few dex of mass per redshift, so a column holds a few blocks of 2 kB, not all 55 kB.
    */
   const columns: (Float64Array | undefined)[][] = [];
   const direct = (z: number, lgM: number): number => Math.log(halo.dndlnM(10 ** lgM, z));
