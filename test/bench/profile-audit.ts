@@ -1,7 +1,7 @@
 /**
  * In-process run of the audit on the benchmark sample, for profiling on one thread:
  *   node test/bench/profile.mjs [rows] [draws] [choices JSON]   (bundles this file)
- * Prints the wall time of the audit (the halo model and tables are built once, before the clock).
+ * Prints the wall and CPU time of the audit (the halo model and tables are built once, before the clock).
  * With PROFILE_OUT=file.cpuprofile the timed run alone is profiled (node:inspector), without the set-up.
  */
 import { writeFileSync } from 'node:fs';
@@ -21,12 +21,14 @@ if (session) {
   await session.post('Profiler.start');
 }
 const t0 = performance.now();
+const c0 = process.cpuUsage();
 const r = runAudit(sample(rows), choices);
 const ms = performance.now() - t0;
+const cpu = process.cpuUsage(c0);
 if (session) {
   const { profile } = await session.post('Profiler.stop');
   writeFileSync(out!, JSON.stringify(profile));
 }
 const ok = r.galaxies.filter((g) => g.status === 'ok').length;
 const used = r.galaxies.reduce((s, g) => s + (g.draws_used ?? 0), 0);
-console.log(`audit ${rows} rows × ${draws} draws × ${choices.imfs.length} IMFs: ${(ms / 1000).toFixed(2)} s (${ok} ok, ${(used / Math.max(ok, 1)).toFixed(0)} draws per galaxy)`);
+console.log(`audit ${rows} rows × ${draws} draws × ${choices.imfs.length} IMFs: ${(ms / 1000).toFixed(2)} s, CPU ${((cpu.user + cpu.system) / 1e6).toFixed(2)} s (${ok} ok, ${(used / Math.max(ok, 1)).toFixed(0)} draws per galaxy)`);

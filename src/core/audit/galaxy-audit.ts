@@ -1,4 +1,5 @@
-import { quantilesByBuckets, quantilesBySelection } from '../numeric/select.js';
+import { quantilesBySelection } from '../numeric/select.js';
+import { bucketQuantiles, makeBuckets, type Buckets } from '../numeric/quantile-buckets.js';
 import { makeScratch, type Scratch } from '../numeric/scratch.js';
 import type { HaloModel } from '../halos/halo-model.js';
 import type { PopulationCache } from '../stars/population-cache.js';
@@ -123,6 +124,13 @@ function drawGrid(g: GalaxyInput, d: GalaxyDraws, valid: ArrayLike<number>, grid
 /** drawGrid for the valid draws from..to − 1, into the given arrays (the earlier entries are kept). */
 function fillGrid(g: GalaxyInput, d: GalaxyDraws, valid: ArrayLike<number>, from: number, to: number, grid: MassToLightTable, ref: MassToLightTable | undefined, out: { x: Float64Array; y: Float64Array; base: Float64Array }): void {
   const { x, y, base } = out;
+  // the table's gridPositionLog written out (the same expressions), without an array per draw
+  const la0 = grid.log10AgeMin;
+  const fa = (grid.nAge - 1) / (grid.log10AgeMax - la0);
+  const ll0 = grid.log10LamMin;
+  const fl = (grid.nLam - 1) / (grid.log10LamMax - ll0);
+  const xTop = grid.nAge - 1;
+  const yTop = grid.nLam - 1;
   for (let i = from; i < to; i++) {
     const k = valid[i];
     if (g.log10Mstar !== undefined) {
@@ -131,9 +139,8 @@ function fillGrid(g: GalaxyInput, d: GalaxyDraws, valid: ArrayLike<number>, from
       y[i] = b;
       base[i] = rescaleBase(d.log10MassRef[k], ref!, a, b);
     } else {
-      const [a, b] = grid.gridPositionLog(d.log10AgeMyr[k], d.log10LambdaRestUm[k]);
-      x[i] = a;
-      y[i] = b;
+      x[i] = Math.min(Math.max((d.log10AgeMyr[k] - la0) * fa, 0), xTop);
+      y[i] = Math.min(Math.max((d.log10LambdaRestUm[k] - ll0) * fl, 0), yTop);
       base[i] = d.log10Lnu[k];
     }
   }
@@ -240,7 +247,7 @@ function timeBudgetOf(ctx: AuditContext, g: GalaxyInput, head: ImfStatistics, ac
     ratio: r.time_budget_ratio_median,
     p_ratio_over_1: r.p_time_budget_over!,
     formed_mass_msun: head.formedMassMedianMsun,
-    accreted_baryons_msun: 10 ** quantilesByBuckets(acc, acc.length, [0.5])[0],
+    accreted_baryons_msun: 10 ** bucketQuantiles(acc, acc.length, [0.5])[0],
     method:
       'per draw: stellar mass formed M*/(1 − R) (R of the population model at the drawn age) over f_b × the mass the ceiling halo accretes in ' +
       `[max(t(z) − age, t(z = ${fz})), t(z)] on its mean history (Fakhouri, Ma & Boylan-Kolchin 2010, integrated along M_h(z))`,
@@ -252,6 +259,8 @@ function timeBudgetOf(ctx: AuditContext, g: GalaxyInput, head: ImfStatistics, ac
  * them; the fixed-redshift checks and the what-it-would-take search draw into arrays of their own).
  */
 const mainScratch = makeScratch();
+/** The looks' buckets per compared IMF, reused from galaxy to galaxy like mainScratch. */
+const lookBuckets: [Buckets, Buckets][] = [];
 
 /**
  * The galaxy's main draws: all `draws` with fixedDraws, else block by block under the adaptive rule
@@ -269,7 +278,8 @@ function mainDraws(ctx: AuditContext, g: GalaxyInput, seed: number, imfTables: r
   const logCeilBuf = mainScratch.f64('ceiling.log', nMax);
   const lfb = Math.log10(halo.baryonFraction);
   const zLook = fixed ? Infinity : normalQuantile(1 - P_CLASS_CHANGE_MAX / looksFor(nMax));
-  const looks = imfTables.map((_, j) => makeLookState(mainScratch.f64(`look.lm.${j}`, nMax), mainScratch.f64(`look.le.${j}`, nMax)));
+  while (lookBuckets.length < imfTables.length) lookBuckets.push([makeBuckets(), makeBuckets()]);
+  const looks = imfTables.map((_, j) => makeLookState(mainScratch.f64(`look.lm.${j}`, nMax), mainScratch.f64(`look.le.${j}`, nMax), lookBuckets[j]));
   const precision = drawPrecisionOf(choices);
   let nv = 0;
   let stop: DrawStop = fixed ? 'fixed' : 'maximum';
@@ -298,6 +308,8 @@ function mainDraws(ctx: AuditContext, g: GalaxyInput, seed: number, imfTables: r
   return {
     d,
     stop,
+    // the looks' vectors of each IMF (imfStatistics takes log10 M⋆ and ε_req from them); none with fixedDraws
+    looks: fixed ? undefined : looks,
     valid: validBuf.subarray(0, nv),
     gx: grid.x.subarray(0, nv),
     gy: grid.y.subarray(0, nv),
@@ -327,7 +339,7 @@ export function auditGalaxy(ctx: AuditContext, g: GalaxyInput, index: number, op
   const { headline, imfs } = headlineAndCompared(g, choices);
   const tableOf = (imf: string): MassToLightTable => ctx.cache.table(imf, g.z, ctx.sfh);
   const refTable = g.imfRef ? tableOf(g.imfRef) : undefined;
-  const { d, stop, valid, gx, gy, base, logCeil } = mainDraws(ctx, g, seed, imfs.map(tableOf), refTable, ceil);
+  const { d, stop, looks, valid, gx, gy, base, logCeil } = mainDraws(ctx, g, seed, imfs.map(tableOf), refTable, ceil);
   const n = d.n;
   if (d.excluded) notes.push(`${d.excluded} of ${n} draws put the observed band outside the model's rest range (Lyman-α–1 μm) and were left out`);
   if (valid.length < Math.max(20, 0.01 * n)) throw new RangeError(`row ${g.row} (${g.id}): almost every redshift draw puts the band outside the model's rest range (Lyman-α–1 μm)`);
@@ -342,7 +354,7 @@ export function auditGalaxy(ctx: AuditContext, g: GalaxyInput, index: number, op
   const sigmaDex = g.log10Mstar !== undefined ? g.log10MstarErr : 0.4 * g.magErr;
   const ed = { halo, z: g.z, sigmaDex, epsRef: choices.epsRef };
   const stats: Record<string, ImfStatistics> = {};
-  for (const imf of imfs) stats[imf] = imfStatistics(tableOf(imf), shared, ed, imf === headline);
+  imfs.forEach((imf, j) => (stats[imf] = imfStatistics(tableOf(imf), shared, ed, imf === headline, looks?.[j])));
   const imfResults: Record<string, ImfResult> = Object.fromEntries(imfs.map((i) => [i, stats[i].result]));
   const h = imfResults[headline];
   const checks = h.verdict !== 'within budget' ? redshiftChecks(ctx, g, seed, tableOf(headline), refTable, notes) : [];

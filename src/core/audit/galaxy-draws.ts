@@ -16,6 +16,8 @@ import type { GalaxyInput } from './sample.js';
 interface FastBackground {
   /** The tables themselves (x = ln(1+z) on x0 + i h), for the benchmarks' side-by-side scripts. */
   readonly x0: number;
+  /** The upper end of the tables' range, ln(1 + 31). */
+  readonly x1: number;
   readonly h: number;
   readonly lnDl: Float64Array;
   readonly lnAge: Float64Array;
@@ -49,6 +51,7 @@ export function fastBackground(bg: Background): FastBackground {
   const inRange = (z: number): boolean => z >= 0.01 && z <= 31;
   f = {
     x0,
+    x1,
     h,
     lnDl: ld,
     lnAge: la,
@@ -150,6 +153,9 @@ export function galaxyDrawStream(g: GalaxyInput, capacity: number, seed: number,
   const needBeta = g.log10Mstar === undefined && g.beta !== undefined && g.betaErr > 0;
   const needMass = g.log10Mstar !== undefined && g.log10MstarErr > 0;
   const l0 = Math.log10(ML_AGE_MIN_MYR);
+  const { x0: tx0, h: th, lnAge: tAge, lnDl: tDl } = bg;
+  const tn = tAge.length;
+  const tx1 = bg.x1;
   const draws = { n: 0, z, lnOnePlusZ: lnZ1, lnAgeGyr: lnT, log10AgeMyr: lAge, log10LambdaRestUm: lLam, log10Lnu: lL, log10MassRef: lM, excluded: 0 };
   const extend = (n: number): void => {
     if (n > capacity) throw new RangeError(`draws: ${n} asked for, room for ${capacity}`);
@@ -177,7 +183,19 @@ export function galaxyDrawStream(g: GalaxyInput, capacity: number, seed: number,
       z[k] = zk;
       const x = Math.log1p(zk);
       lnZ1[k] = x;
-      const lt = bg.lnAgeAt(x);
+      // ln t and ln D_L at x from the two tables with one cell and weight (bg.lnAgeAt and bg.lnDlAt, the same numbers)
+      let lt: number;
+      let lnDl: number;
+      if (x >= tx0 && x <= tx1) {
+        const t = (x - tx0) / th;
+        const i = Math.min(Math.max(Math.floor(t), 0), tn - 2);
+        const u = t - i;
+        lt = tAge[i] + u * (tAge[i + 1] - tAge[i]);
+        lnDl = tDl[i] + u * (tDl[i + 1] - tDl[i]);
+      } else {
+        lt = bg.lnAgeAt(x);
+        lnDl = bg.lnDlAt(x);
+      }
       lnT[k] = lt;
       const log10TMax = lt / Math.LN10 + 3; // Myr
       const la = l0 + uAge * (log10TMax - l0);
@@ -185,7 +203,7 @@ export function galaxyDrawStream(g: GalaxyInput, capacity: number, seed: number,
       if (g.log10Mstar !== undefined) {
         let m = g.log10Mstar + gMass * g.log10MstarErr;
         if (isAlt && g.log10MstarAlt !== undefined) m = g.log10MstarAlt + gMass * g.log10MstarErr;
-        else if (zk !== g.z) m += (2 * (bg.lnDlAt(x) - Math.log(dl0)) - (x - Math.log1p(g.z))) / Math.LN10;
+        else if (zk !== g.z) m += (2 * (lnDl - Math.log(dl0)) - (x - Math.log1p(g.z))) / Math.LN10;
         lM[k] = m;
         lL[k] = Number.NaN;
         lLam[k] = Number.NaN;
@@ -198,7 +216,7 @@ export function galaxyDrawStream(g: GalaxyInput, capacity: number, seed: number,
           excluded++;
           continue;
         }
-        let l = log10LnuFromApparent(mApp + gMag * g.magErr, bg.lnDlAt(x), x);
+        let l = log10LnuFromApparent(mApp + gMag * g.magErr, lnDl, x);
         if (g.beta !== undefined) l += 0.4 * attenuationFromBeta(g.beta + gBeta * g.betaErr, rest);
         lL[k] = l;
         lLam[k] = lObs - x / Math.LN10;

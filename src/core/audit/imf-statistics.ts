@@ -1,5 +1,6 @@
-import { quantilesByBuckets } from '../numeric/select.js';
+import { bucketQuantiles, fillBuckets, layoutBuckets, makeBuckets, quantilesFromBuckets, type Buckets } from '../numeric/quantile-buckets.js';
 import type { HaloModel } from '../halos/halo-model.js';
+import { GRID_DLOG10M, lnMassFunctionGrid } from '../halos/mass-function-grid.js';
 import type { MassToLightTable } from '../stars/mass-to-light.js';
 import { eddingtonFirstOrderShiftDex, eddingtonPosterior, type LnPrior } from './eddington.js';
 import { medianErrorQuantiles, pClassChange } from './draw-rule.js';
@@ -77,8 +78,8 @@ function hostPrior(e: EddingtonInputs, eps: number): LnPrior {
   return Object.assign(f, { onGrid: (x0: number, h: number, n: number, out: Float64Array) => lnDn.onGrid(x0, h, n, out, lfe) });
 }
 
-/** Node spacing of the per-galaxy table of ln dn/dlnM, dex. */
-const PRIOR_STEP_DEX = 0.0025;
+/** Node spacing of the per-galaxy table of ln dn/dlnM, dex: the mass nodes of the shared (z, log10 M) grid. */
+const PRIOR_STEP_DEX = GRID_DLOG10M;
 
 type LnMassFunction = ((lh: number) => number) & {
   /** out[i] = f(x0 + i h − shift), the same values as f, the nodes filled first. */
@@ -86,12 +87,15 @@ type LnMassFunction = ((lh: number) => number) & {
 };
 
 /**
- * ln dn/dlnM(10^lh, z) at the galaxy's redshift, −∞ outside the σ table: the halo model's own values on
- * nodes 0.0025 dex apart (computed on first use, so a galaxy evaluates the mass function at a few hundred
- * masses instead of at every point of every posterior grid), read with 4-point Lagrange interpolation
- * (error ≈ (3/128) h⁴ |f⁗|, below 1e-12 in the posterior median here; common practice, no source). Linear in the
- * first and last node interval. One table per EddingtonInputs object, i.e. per galaxy: the last one is kept,
- * in buffers reused from galaxy to galaxy (a galaxy's IMFs are done one after another).
+ * ln dn/dlnM(10^lh, z) at the galaxy's redshift, −∞ outside the σ table, on nodes 0.0025 dex apart
+ * (filled on first use, so a galaxy reads a few hundred masses instead of every point of every posterior
+ * grid), read with 4-point Lagrange interpolation (error ≈ (3/128) h⁴ |f⁗|, below 1e-12 in the posterior
+ * median here; common practice, no source). Linear in the first and last node interval. Each node is the
+ * run's shared (z, log10 M) table of the mass function read at the galaxy's z (halos/mass-function-grid.ts:
+ * 4-point Lagrange in z on 0.05 steps, ≤ 2.5e-6 from the direct ln dn/dlnM), so the mass function itself
+ * is evaluated once per table node for the whole sample, not per galaxy. One node table per
+ * EddingtonInputs object, i.e. per galaxy: the last one is kept, in buffers reused from galaxy to galaxy
+ * (a galaxy's IMFs are done one after another).
  */
 let priorFor: { e: EddingtonInputs; f: LnMassFunction } | undefined;
 /** Node values and the generation that filled each (a node is set when its stamp is the current generation), reused from galaxy to galaxy. */
@@ -111,11 +115,10 @@ function lnMassFunctionAt(e: EddingtonInputs): LnMassFunction {
   const nodes = nodeBuf;
   const stamp = nodeStamp;
   const gen = ++generation;
+  const shared = lnMassFunctionGrid(e.halo);
   const node = (i: number): number => {
     if (stamp[i] !== gen) {
-      // the end nodes sit just inside the table so that the mass function is defined there
-      const lh = Math.min(Math.max(lo + i * PRIOR_STEP_DEX, lo + 1e-9), hi - 1e-9);
-      nodes[i] = Math.log(e.halo.dndlnM(10 ** lh, e.z));
+      nodes[i] = shared.nodeAt(e.z, i);
       stamp[i] = gen;
     }
     return nodes[i];
@@ -163,38 +166,115 @@ function scratchVectors(n: number): Float64Array[] {
 
 /**
  * Each draw's cell in the M/L grid and its fractional position, computed once per set of shared draws
- * and used by every IMF's table (they share the grid: gridPositionLog). Buffers are reused from galaxy
- * to galaxy; the cache holds only the last set of draws.
+ * and used by every IMF's table (they share the grid: gridPositionLog), with the ranges the statistics'
+ * bucket bounds need (cells, base, ceilings, accretion). Buffers are reused from galaxy to galaxy; the
+ * cache holds only the last set of draws.
  */
 interface CellWeights {
   readonly cell: Int32Array;
   readonly ageIndex: Int32Array;
   readonly tx: Float64Array;
   readonly ty: Float64Array;
+  /** Smallest and largest age and wavelength cell index, and the ranges of the shared vectors. */
+  readonly ranges: {
+    aLo: number; aHi: number; jLo: number; jHi: number;
+    baseLo: number; baseHi: number; ceilLo: number; ceilHi: number; cvLo: number; cvHi: number; accLo: number; accHi: number;
+  };
 }
-let cellBuf = { cell: new Int32Array(0), ageIndex: new Int32Array(0), tx: new Float64Array(0), ty: new Float64Array(0) };
+let cellBuf: CellWeights = {
+  cell: new Int32Array(0), ageIndex: new Int32Array(0), tx: new Float64Array(0), ty: new Float64Array(0),
+  ranges: { aLo: 0, aHi: 0, jLo: 0, jHi: 0, baseLo: 0, baseHi: 0, ceilLo: 0, ceilHi: 0, cvLo: 0, cvHi: 0, accLo: 0, accHi: 0 },
+};
 let cellFor: { d: SharedDraws; nAge: number; nLam: number } | undefined;
 function cellWeights(d: SharedDraws, tab: MassToLightTable): CellWeights {
   const n = d.n;
   if (cellFor && cellFor.d === d && cellFor.nAge === tab.nAge && cellFor.nLam === tab.nLam) return cellBuf;
   if (cellBuf.cell.length < n) {
     const m = Math.max(n, 1024);
-    cellBuf = { cell: new Int32Array(m), ageIndex: new Int32Array(m), tx: new Float64Array(m), ty: new Float64Array(m) };
+    cellBuf = { cell: new Int32Array(m), ageIndex: new Int32Array(m), tx: new Float64Array(m), ty: new Float64Array(m), ranges: cellBuf.ranges };
   }
   const { nAge, nLam } = tab;
+  const { cell, ageIndex, tx, ty } = cellBuf;
+  let aLo = nAge;
+  let aHi = 0;
+  let jLo = nLam;
+  let jHi = 0;
+  let baseLo = Infinity;
+  let baseHi = -Infinity;
   for (let k = 0; k < n; k++) {
     const x = d.gx[k];
     const y = d.gy[k];
     const i = Math.min(Math.floor(x), nAge - 2);
     const j = Math.min(Math.floor(y), nLam - 2);
-    cellBuf.cell[k] = i * nLam + j;
-    cellBuf.ageIndex[k] = i;
-    cellBuf.tx[k] = x - i;
-    cellBuf.ty[k] = y - j;
+    cell[k] = i * nLam + j;
+    ageIndex[k] = i;
+    tx[k] = x - i;
+    ty[k] = y - j;
+    if (i < aLo) aLo = i;
+    if (i > aHi) aHi = i;
+    if (j < jLo) jLo = j;
+    if (j > jHi) jHi = j;
+    const b = d.base[k];
+    if (b < baseLo) baseLo = b;
+    if (b > baseHi) baseHi = b;
   }
+  const [ceilLo, ceilHi] = rangeOf(d.logCeil, n);
+  const [cvLo, cvHi] = rangeOf(d.logCeilCv, n);
+  const [accLo, accHi] = d.logAccretedBaryons ? rangeOf(d.logAccretedBaryons, n) : [0, 0];
+  Object.assign(cellBuf.ranges, { aLo, aHi, jLo, jHi, baseLo, baseHi, ceilLo, ceilHi, cvLo, cvHi, accLo, accHi });
   cellFor = { d, nAge, nLam };
   return cellBuf;
 }
+
+function rangeOf(a: Float64Array, n: number): [number, number] {
+  let lo = Infinity;
+  let hi = -Infinity;
+  for (let i = 0; i < n; i++) {
+    const v = a[i];
+    if (v < lo) lo = v;
+    if (v > hi) hi = v;
+  }
+  return [lo, hi];
+}
+
+/**
+ * Bounds of the M/L table's terms over the cells the draws use: log10 M⋆ − base = surv − lnu and −lnu
+ * are convex combinations of the four corners of each draw's cell (the bilinear rule), so they lie
+ * within the corners' range over those cells.
+ */
+function tableBounds(tab: MassToLightTable, r: CellWeights['ranges']): { dLo: number; dHi: number; nLo: number; nHi: number } {
+  let dLo = Infinity;
+  let dHi = -Infinity;
+  let nLo = Infinity;
+  let nHi = -Infinity;
+  for (let i = r.aLo; i <= r.aHi + 1; i++) {
+    for (let j = r.jLo; j <= r.jHi + 1; j++) {
+      const l = tab.logLnu[i * tab.nLam + j];
+      const dv = tab.logSurv[i] - l;
+      if (dv < dLo) dLo = dv;
+      if (dv > dHi) dHi = dv;
+      if (-l < nLo) nLo = -l;
+      if (-l > nHi) nHi = -l;
+    }
+  }
+  return { dLo, dHi, nLo, nHi };
+}
+
+/** Puts value v (index i) into its bucket (quantile-buckets.ts: monotone in v, NaN in bucket 0). */
+function bucket(bk: Buckets, i: number, v: number): void {
+  let b = ((v - bk.min) * bk.scale) | 0;
+  if (b > bk.top) b = bk.top;
+  else if (b < 0 || v !== v) b = 0;
+  bk.of[i] = b;
+  bk.counts[b]++;
+}
+
+/** The buckets of the five vectors of imfStatistics, reused from call to call. */
+const bkM = makeBuckets();
+const bkE = makeBuckets();
+const bkC = makeBuckets();
+const bkR = makeBuckets();
+const bkF = makeBuckets();
 
 /** Local slope α of dn/dlnM ∝ M^−α at M (centred difference over ±0.041 dex). */
 function localSlope(halo: HaloModel, m: number, z: number): number {
@@ -205,10 +285,18 @@ function localSlope(halo: HaloModel, m: number, z: number): number {
   return a;
 }
 
-/** The statistics of one IMF over the shared draws (everything in log10: quantiles commute with 10^x). */
-export function imfStatistics(tab: MassToLightTable, d: SharedDraws, ed: EddingtonInputs, wantFormedMedian: boolean): ImfStatistics {
+/**
+ * The statistics of one IMF over the shared draws (everything in log10: quantiles commute with 10^x).
+ * @param look the adaptive rule's vectors of this IMF over the same draws (medianLook with this table):
+ *   log10 M⋆ and log10 ε_req are then taken from it (extended to all d.n draws first) instead of being
+ *   computed again; the same numbers, so the statistics are bit for bit those without it.
+ */
+export function imfStatistics(tab: MassToLightTable, d: SharedDraws, ed: EddingtonInputs, wantFormedMedian: boolean, look?: LookState): ImfStatistics {
   const nv = d.n;
-  const [lm, leps, lepsCv, lr, lf] = scratchVectors(nv);
+  const [lmOwn, lepsOwn, lepsCv, lr, lf] = scratchVectors(nv);
+  if (look) extendLook(tab, d.base, d.gx, d.gy, d.logCeil, nv, look);
+  const lm = look ? look.lm : lmOwn;
+  const leps = look ? look.le : lepsOwn;
   const acc = d.logAccretedBaryons;
   const lratio = acc ? lr : undefined;
   const lformed = acc && wantFormedMedian ? lf : undefined;
@@ -222,71 +310,80 @@ export function imfStatistics(tab: MassToLightTable, d: SharedDraws, ed: Eddingt
   const S = tab.logSurv;
   const nLam = tab.nLam;
   const { cell, ageIndex, tx: txs, ty: tys } = w;
-  // ranges of the vectors, kept in the same pass (the quantiles then skip theirs)
-  let vMin = Infinity;
-  let vMax = -Infinity;
-  let eMin = Infinity;
-  let eMax = -Infinity;
-  let cMin = Infinity;
-  let cMax = -Infinity;
-  let rMin = Infinity;
-  let rMax = -Infinity;
-  let fMin = Infinity;
-  let fMax = -Infinity;
+  // Each vector's bucket counts are made in this loop (quantile-buckets.ts), over bounds known before it:
+  // the look's own ranges, or the M/L table's corners over the draws' cells plus the shared vectors' ranges.
+  const r = w.ranges;
+  const t = tableBounds(tab, r);
+  // The look's last buckets, when it was taken over all these draws, are read again as they are.
+  const kept = look !== undefined && look.bucketsOf === nv;
+  const vLo = look ? look.range.lmMin : r.baseLo + t.dLo;
+  const vHi = look ? look.range.lmMax : r.baseHi + t.dHi;
+  const useM = !kept && layoutBuckets(bkM, nv, vLo, vHi);
+  const useE = !kept && layoutBuckets(bkE, nv, look ? look.range.leMin : vLo - r.ceilHi, look ? look.range.leMax : vHi - r.ceilLo);
+  const useC = layoutBuckets(bkC, nv, vLo - r.cvHi, vHi - r.cvLo);
+  const fLo = r.baseLo + t.nLo;
+  const fHi = r.baseHi + t.nHi;
+  const useR = !!acc && layoutBuckets(bkR, nv, fLo - r.accHi, fHi - r.accLo);
+  const useF = !!lformed && layoutBuckets(bkF, nv, fLo, fHi);
   const base = d.base;
   const logCeil = d.logCeil;
   const logCeilCv = d.logCeilCv;
   const cosmo = d.cosmoOffset;
+  const own = !look;
   for (let i = 0; i < nv; i++) {
-    // the table's own bilinear rule (MassToLightTable.logMassToLightAt), term for term, at the shared cell
-    const c = cell[i];
     const a = ageIndex[i];
     const tx = txs[i];
-    const ty = tys[i];
-    const lnu = (1 - tx) * ((1 - ty) * L[c] + ty * L[c + 1]) + tx * ((1 - ty) * L[c + nLam] + ty * L[c + nLam + 1]);
     const surv = (1 - tx) * S[a] + tx * S[a + 1];
-    const v = base[i] + (surv - lnu);
-    lm[i] = v;
-    if (v < vMin) vMin = v;
-    if (v > vMax) vMax = v;
-    const e = v - logCeil[i];
-    leps[i] = e;
-    if (e < eMin) eMin = e;
-    if (e > eMax) eMax = e;
+    let v: number;
+    let e: number;
+    if (own) {
+      // the table's own bilinear rule (MassToLightTable.logMassToLightAt), term for term, at the shared cell
+      const c = cell[i];
+      const ty = tys[i];
+      const lnu = (1 - tx) * ((1 - ty) * L[c] + ty * L[c + 1]) + tx * ((1 - ty) * L[c + nLam] + ty * L[c + nLam + 1]);
+      v = base[i] + (surv - lnu);
+      lm[i] = v;
+      e = v - logCeil[i];
+      leps[i] = e;
+    } else {
+      v = lm[i];
+      e = leps[i];
+    }
+    if (useM) bucket(bkM, i, v);
+    if (useE) bucket(bkE, i, e);
     const ecv = v - logCeilCv[i];
     lepsCv[i] = ecv;
-    if (ecv < cMin) cMin = ecv;
-    if (ecv > cMax) cMax = ecv;
+    if (useC) bucket(bkC, i, ecv);
     if (e > 0) over++;
     if (e > cosmo[i]) overCosmo++;
     if (e > lRef) strained++;
     if (acc) {
       // log10 (1 − R) at the draw's age: the same interpolation as logSurvivingAt
       const f = v - surv;
-      const r = f - acc[i];
-      lratio![i] = r;
-      if (r < rMin) rMin = r;
-      if (r > rMax) rMax = r;
+      const rr = f - acc[i];
+      lratio![i] = rr;
+      if (useR) bucket(bkR, i, rr);
       if (lformed) {
         lformed[i] = f;
-        if (f < fMin) fMin = f;
-        if (f > fMax) fMax = f;
+        if (useF) bucket(bkF, i, f);
       }
-      if (r > 0) tbOver++;
+      if (rr > 0) tbOver++;
     }
   }
+  /** The quantiles of a vector from the counts of this loop, or bucketed on its own where they could not be laid out. */
+  const quantiles = (x: Float64Array, qs: readonly number[], bk: Buckets, made: boolean): number[] => (made ? quantilesFromBuckets(x, nv, qs, bk) : bucketQuantiles(x, nv, qs));
   const [qa, , qb] = medianErrorQuantiles(nv);
-  const [lm16, lmMed, lm84, lmA, lmB] = quantilesByBuckets(lm, nv, [0.16, 0.5, 0.84, qa, qb], { min: vMin, max: vMax });
-  const [le05, leMed, le95, leA, leB] = quantilesByBuckets(leps, nv, [0.05, 0.5, 0.95, qa, qb], { min: eMin, max: eMax });
+  const [lm16, lmMed, lm84, lmA, lmB] = kept ? quantilesFromBuckets(lm, nv, [0.16, 0.5, 0.84, qa, qb], look.bkLm) : quantiles(lm, [0.16, 0.5, 0.84, qa, qb], bkM, useM);
+  const [le05, leMed, le95, leA, leB] = kept ? quantilesFromBuckets(leps, nv, [0.05, 0.5, 0.95, qa, qb], look.bkLe) : quantiles(leps, [0.05, 0.5, 0.95, qa, qb], bkE, useE);
   const leErr = 0.5 * (leB - leA);
   const med = 10 ** leMed;
-  const medCv = 10 ** quantilesByBuckets(lepsCv, nv, [0.5], { min: cMin, max: cMax })[0];
+  const medCv = 10 ** quantiles(lepsCv, [0.5], bkC, useC)[0];
   const epsHost = Math.min(1, Math.max(med, ed.epsRef));
   const shift = eddingtonPosterior(hostPrior(ed, epsHost), lmMed, ed.sigmaDex).shiftMedianDex;
   const mHost = Math.min(Math.max(10 ** lmMed / (ed.halo.baryonFraction * epsHost), 1e3), 1e18);
   const alpha = localSlope(ed.halo, mHost, ed.z);
   const debiased = med * 10 ** -shift;
-  const ratioMed = lratio ? 10 ** quantilesByBuckets(lratio, nv, [0.5], { min: rMin, max: rMax })[0] : undefined;
+  const ratioMed = lratio ? 10 ** quantiles(lratio, [0.5], bkR, useR)[0] : undefined;
   const result: ImfResult = {
     verdict: verdictFor(med, ed.epsRef),
     log_mstar_median: lmMed,
@@ -312,7 +409,7 @@ export function imfStatistics(tab: MassToLightTable, d: SharedDraws, ed: Eddingt
     result,
     eddingtonSlopeAlpha: alpha,
     eddingtonFirstOrderDex: eddingtonFirstOrderShiftDex(alpha, ed.sigmaDex),
-    formedMassMedianMsun: lformed ? 10 ** quantilesByBuckets(lformed, nv, [0.5], { min: fMin, max: fMax })[0] : undefined,
+    formedMassMedianMsun: lformed ? 10 ** quantiles(lformed, [0.5], bkF, useF)[0] : undefined,
   };
 }
 
@@ -321,11 +418,17 @@ export interface LookState {
   n: number;
   readonly lm: Float64Array;
   readonly le: Float64Array;
+  /** The buckets of lm and le at the last look, and the number of draws they hold (−1: none). */
+  readonly bkLm: Buckets;
+  readonly bkLe: Buckets;
+  bucketsOf: number;
   range: { lmMin: number; lmMax: number; leMin: number; leMax: number };
 }
 
-export function makeLookState(lm: Float64Array, le: Float64Array): LookState {
-  return { n: 0, lm, le, range: { lmMin: Infinity, lmMax: -Infinity, leMin: Infinity, leMax: -Infinity } };
+/** @param buckets two Buckets (makeBuckets) for lm and le, reusable from galaxy to galaxy; fresh ones when absent. */
+export function makeLookState(lm: Float64Array, le: Float64Array, buckets?: readonly [Buckets, Buckets]): LookState {
+  const [bkLm, bkLe] = buckets ?? [makeBuckets(), makeBuckets()];
+  return { n: 0, lm, le, bkLm, bkLe, bucketsOf: -1, range: { lmMin: Infinity, lmMax: -Infinity, leMin: Infinity, leMax: -Infinity } };
 }
 
 /**
@@ -334,6 +437,22 @@ export function makeLookState(lm: Float64Array, le: Float64Array): LookState {
  * Monte Carlo errors over all n.
  */
 export function medianLook(tab: MassToLightTable, base: Float64Array, gx: Float64Array, gy: Float64Array, logCeil: Float64Array, n: number, look: LookState): { logMstarErrDex: number; logEpsMedian: number; logEpsErrDex: number } {
+  extendLook(tab, base, gx, gy, logCeil, n, look);
+  const { lm, le, range: r } = look;
+  const qs = medianErrorQuantiles(n);
+  // the buckets are kept (imfStatistics reads them again when the draws stop here)
+  const okM = layoutBuckets(look.bkLm, n, r.lmMin, r.lmMax);
+  const okE = layoutBuckets(look.bkLe, n, r.leMin, r.leMax);
+  if (okM) fillBuckets(lm, n, look.bkLm);
+  if (okE) fillBuckets(le, n, look.bkLe);
+  look.bucketsOf = okM && okE ? n : -1;
+  const [ma, , mb] = okM ? quantilesFromBuckets(lm, n, qs, look.bkLm) : bucketQuantiles(lm, n, qs, { min: r.lmMin, max: r.lmMax });
+  const [ea, em, eb] = okE ? quantilesFromBuckets(le, n, qs, look.bkLe) : bucketQuantiles(le, n, qs, { min: r.leMin, max: r.leMax });
+  return { logMstarErrDex: 0.5 * (mb - ma), logEpsMedian: em, logEpsErrDex: 0.5 * (eb - ea) };
+}
+
+/** A look's vectors extended from look.n to n valid draws (logMassToLightAt: the same numbers as imfStatistics' own rule), with their ranges. */
+function extendLook(tab: MassToLightTable, base: Float64Array, gx: Float64Array, gy: Float64Array, logCeil: Float64Array, n: number, look: LookState): void {
   const { lm, le, range: r } = look;
   for (let i = look.n; i < n; i++) {
     const v = base[i] + tab.logMassToLightAt(gx[i], gy[i]);
@@ -345,9 +464,5 @@ export function medianLook(tab: MassToLightTable, base: Float64Array, gx: Float6
     if (e < r.leMin) r.leMin = e;
     if (e > r.leMax) r.leMax = e;
   }
-  look.n = n;
-  const qs = medianErrorQuantiles(n);
-  const [ma, , mb] = quantilesByBuckets(lm, n, qs, { min: r.lmMin, max: r.lmMax });
-  const [ea, em, eb] = quantilesByBuckets(le, n, qs, { min: r.leMin, max: r.leMax });
-  return { logMstarErrDex: 0.5 * (mb - ma), logEpsMedian: em, logEpsErrDex: 0.5 * (eb - ea) };
+  look.n = Math.max(look.n, n);
 }

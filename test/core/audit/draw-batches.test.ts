@@ -3,8 +3,10 @@ import { makeBackground, PLANCK18 } from '../../../src/core/cosmology/index.js';
 import { makeHaloModel } from '../../../src/core/halos/index.js';
 import { makeAccretionHistory } from '../../../src/core/audit/accretion.js';
 import { makeCeilingTable } from '../../../src/core/audit/ceiling.js';
-import { fastBackground, tabulatedBackground } from '../../../src/core/audit/galaxy-draws.js';
-import { makeRandom } from '../../../src/core/audit/random.js';
+import { drawGalaxy, fastBackground, tabulatedBackground } from '../../../src/core/audit/galaxy-draws.js';
+import { idSeed, makeRandom } from '../../../src/core/audit/random.js';
+import { fixedRedshiftCells } from '../../../src/core/audit/galaxy-audit.js';
+import { prepareAudit, type AuditChoices } from '../../../src/core/audit/index.js';
 import { logAccretedBaryons, logAccretedBaryonsOfDraws } from '../../../src/core/audit/time-budget.js';
 
 // The Monte Carlo's batch forms against the per-point functions they replace (the per-point ones are
@@ -74,5 +76,31 @@ describe('ceiling lookups per batch: log10HaloMassesAt equals the per-point look
   });
   it('a redshift outside the table is refused with the per-point message', () => {
     expect(() => ceil.log10HaloMassesAt([3, 40], undefined, 2, undefined, 0, new Float64Array(2))).toThrow(/outside the ceiling table/);
+  });
+});
+
+describe("grid positions per batch: the draws' cells in the M/L tables equal the table's own gridPositionLog", () => {
+  it('a brightness row at a fixed redshift: x and y of every valid draw, bit for bit', () => {
+    const choices: AuditChoices = {
+      cosmology: PLANCK18, massFunction: 'sheth-tormen', transfer: { kind: 'eh98' }, deltaC: { kind: 'constant', value: 1.686 },
+      imfs: ['salpeter'], sfh: 'constant', metallicity: 0.02, epsRef: 0.3, quantile: 0.997,
+      draws: 3000, seed: 4, sliceDz: 1, formationZ: 30, survey: { name: 'grid', areaArcmin2: 40, zMin: 7, zMax: 11 }, surveys: [], zBins: [],
+    };
+    const prep = prepareAudit('id,z,z_lo,z_hi,muv,mag_err,beta\nG-1,8.4,8.1,8.8,-20.3,0.1,-2.0', choices);
+    const g = prep.parsed.rowAt(0).galaxy!;
+    const zf = 8.1;
+    const cells = fixedRedshiftCells(prep.ctx, g, zf, 3000)!;
+    const d = drawGalaxy(g, 3000, idSeed(choices.seed, g.id), prep.ctx.halo.background, { z: zf, alt: false });
+    const tab = prep.ctx.cache.table('salpeter', g.z, prep.ctx.sfh);
+    let m = 0;
+    for (let k = 0; k < d.n; k++) {
+      if (!Number.isFinite(d.log10Lnu[k])) continue;
+      const [x, y] = tab.gridPositionLog(d.log10AgeMyr[k], d.log10LambdaRestUm[k]);
+      expect(cells.gx[m]).toBe(x);
+      expect(cells.gy[m]).toBe(y);
+      m++;
+    }
+    expect(m).toBe(cells.gx.length);
+    expect(m).toBeGreaterThan(2000);
   });
 });

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { imfStatistics, type SharedDraws } from '../../../src/core/audit/imf-statistics.js';
+import { imfStatistics, makeLookState, medianLook, type SharedDraws } from '../../../src/core/audit/imf-statistics.js';
 import { eddingtonPosterior } from '../../../src/core/audit/eddington.js';
 import { logSurvivingAt } from '../../../src/core/audit/time-budget.js';
 import { PLANCK18 } from '../../../src/core/cosmology/index.js';
@@ -32,7 +32,9 @@ describe('imfStatistics: the shared-cell M/L rule, bucket quantiles and tabulate
   for (const imf of ['salpeter', 'top-heavy-flat']) {
     it(`${imf}: percentiles, probabilities, time budget and Eddington shift`, () => {
       const tab = cache.table(imf, 9, sfh);
-      const ed = { halo, z: 9, sigmaDex: 0.1, epsRef: 0.3 };
+      // a redshift between the shared prior table's z nodes (0.05 apart), so its interpolation is exercised
+      const zEd = 9.0137;
+      const ed = { halo, z: zEd, sigmaDex: 0.1, epsRef: 0.3 };
       const st = imfStatistics(tab, d, ed, true);
       const lm = (i: number): number => d.base[i] + tab.logMassToLightAt(d.gx[i], d.gy[i]);
       const lmS = sorted(lm);
@@ -61,9 +63,26 @@ describe('imfStatistics: the shared-cell M/L rule, bucket quantiles and tabulate
       // the prior from the per-galaxy node table against dn/dlnM itself
       const epsHost = Math.min(1, Math.max(r.eps_required_median, 0.3));
       const lfe = Math.log10(halo.baryonFraction * epsHost);
-      const exact = eddingtonPosterior((x) => Math.log(halo.dndlnM(10 ** (x - lfe), 9)), r.log_mstar_median, 0.1).shiftMedianDex;
-      expect(Math.abs(r.eddington_shift_dex - exact)).toBeLessThan(1e-12);
+      const exact = eddingtonPosterior((x) => Math.log(halo.dndlnM(10 ** (x - lfe), zEd)), r.log_mstar_median, 0.1).shiftMedianDex;
+      // The prior's nodes come from the shared (z, log10 M) table (≤ 1e-4 from ln dn/dlnM: mass-function-grid.test.ts).
+      // Multiplying the prior by e^δ(x), |δ| ≤ δmax, moves the posterior CDF at the median by ≤ δmax/2, so the
+      // median by ≤ δmax/2 / p(median) ≈ δmax σ √(2π)/2 (Gaussian posterior): ≤ 1.3 σ × 1e-4 dex.
+      expect(Math.abs(r.eddington_shift_dex - exact)).toBeLessThan(1.3 * 0.1 * 1e-4);
       expect(r.eddington_shift_dex).toBeGreaterThan(0);
     });
   }
+  it("with the adaptive rule's look vectors (medianLook at 2000 of the 3000 draws, then extended; or at all 3000, its buckets kept) the statistics are the same, bit for bit", () => {
+    const tab = cache.table('kroupa', 9, sfh);
+    const ed = { halo, z: 9.0137, sigmaDex: 0.1, epsRef: 0.3 };
+    const look = makeLookState(new Float64Array(n), new Float64Array(n));
+    medianLook(tab, d.base, d.gx, d.gy, d.logCeil, 2000, look);
+    const withLook = imfStatistics(tab, d, ed, true, look);
+    expect(look.n).toBe(n);
+    expect(withLook).toEqual(imfStatistics(tab, d, ed, true));
+    // a look over all the draws: its buckets are read again as they are
+    const full = makeLookState(new Float64Array(n), new Float64Array(n));
+    medianLook(tab, d.base, d.gx, d.gy, d.logCeil, n, full);
+    expect(full.bucketsOf).toBe(n);
+    expect(imfStatistics(tab, d, ed, true, full)).toEqual(imfStatistics(tab, d, ed, true));
+  });
 });
