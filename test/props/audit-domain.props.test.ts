@@ -59,7 +59,7 @@ describe('no accepted row or choice can sink the run, property-based', () => {
       const s = spec(k);
       return s.integer ? fc.integer({ min: s.min, max: s.max }) : dbl(s.min, s.max);
     };
-    const logArea = dbl(Math.log10(spec('areaArcmin2').min), Math.log10(spec('areaArcmin2').max)).map((x) => Math.min(10 ** x, spec('areaArcmin2').max));
+    const logArea = dbl(Math.log10(spec('areaArcmin2').min), Math.log10(spec('areaArcmin2').max)).map((x) => Math.min(Math.max(10 ** x, spec('areaArcmin2').min), spec('areaArcmin2').max)); // 10 ** log10(min) can round below min
     fc.assert(
       fc.property(inRange('epsRef'), inRange('quantile'), inRange('sliceDz'), inRange('formationZ'), logArea, dbl(0, 29), dbl(0.5, 12), (epsRef, quantile, sliceDz, formationZ, area, z0, width) => {
         const zMax = Math.min(30, z0 + width);
