@@ -4,7 +4,7 @@ export { cubicSpline, splineEval, splineDeriv } from './cubic-spline.js';
 export type { CubicSpline } from './cubic-spline.js';
 export { findRoot } from './root-find.js';
 export { quantileSorted } from './quantile.js';
-export { selectKth, quantilesBySelection, quantilesByBuckets } from './select.js';
+export { selectKth, quantilesBySelection } from './select.js';
 export { isStrictNumber, parseStrictNumber } from './strict-number.js';
 export { makeScratch } from './scratch.js';
 export type { Scratch } from './scratch.js';

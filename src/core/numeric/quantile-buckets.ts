@@ -6,7 +6,7 @@ import { quantilesBySelection, selectKth } from './select.js';
  * bit. The bucket index b(v) = clamp(⌊(v − min)·scale⌋, 0, nb − 1) is monotone in v whatever min and
  * max are, so the buckets hold consecutive ranks and the exact order statistics are selected among the
  * values of the few buckets that hold a wanted rank; bounds that are not the vector's own range only
- * make those buckets fuller (slower, never wrong). NaN goes to bucket 0, as in quantilesByBuckets.
+ * make those buckets fuller (slower, never wrong). NaN goes to bucket 0.
  *
  * Use: layoutBuckets(bk, n, min, max) (false: use bucketQuantiles instead), then per value i
  *   let b = ((v − bk.min) * bk.scale) | 0; if (b > bk.top) b = bk.top; else if (b < 0 || v !== v) b = 0;
