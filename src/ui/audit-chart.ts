@@ -11,6 +11,12 @@ import { lineSample, mark } from './verdict-marks.js';
 /** Longest slice of overlay drawing in one task, ms (then the page gets a turn). */
 const SLICE_MS = 40;
 
+/** Figures with at most this many markers draw in the page's update, not in a task of their own. */
+const SMALL_FIGURE = 500;
+
+/** Markers of a model, over its sets. */
+const markerCount = (m: ChartModel | undefined): number => (m ? m.markers.reduce((a, s) => a + s.x.length, 0) : 0);
+
 /** The markers' extents on each axis (error bars included on y), computed once per model. */
 const extents = new WeakMap<ChartModel, { x: [number, number]; y: [number, number] }>();
 function markerExtents(m: ChartModel): { x: [number, number]; y: [number, number] } {
@@ -125,24 +131,34 @@ export class AuditChart extends LitElement {
   /**
    * Draws in a task of its own, after the page's update: the figures of a large result then come one task
    * each, not all in the task that renders the page. Several requests before it runs make one draw.
-   * `updateComplete` waits for it.
+   * `updateComplete` waits for it. A small figure (at most SMALL_FIGURE markers) draws at once, in the
+   * page's update: it takes a few milliseconds, and a task of its own would wait for the page's frame.
    */
   private scheduleDraw(kind: 'draw' | 'redraw'): void {
     if (this.drawKind !== 'draw') this.drawKind = kind;
+    if (!this.drawing && markerCount(this.model) <= SMALL_FIGURE) {
+      this.drawNow();
+      return;
+    }
     this.drawing ??= new Promise<void>((done) =>
       setTimeout(() => {
-        const k = this.drawKind;
-        this.drawing = undefined;
-        this.drawKind = undefined;
-        try {
-          if (k === 'draw' || !this.plot) this.draw();
-          else this.plot.redraw(false, false);
-        } catch (e) {
-          this.dispatchEvent(new CustomEvent('chart-error', { detail: { id: this.model?.id, message: (e as Error).message }, bubbles: true, composed: true }));
-        }
+        this.drawNow();
         done();
       }, 0),
     );
+  }
+
+  /** The draw (or redraw) asked for since the last one; a failure is reported as `chart-error`. */
+  private drawNow(): void {
+    const k = this.drawKind;
+    this.drawing = undefined;
+    this.drawKind = undefined;
+    try {
+      if (k === 'draw' || !this.plot) this.draw();
+      else this.plot.redraw(false, false);
+    } catch (e) {
+      this.dispatchEvent(new CustomEvent('chart-error', { detail: { id: this.model?.id, message: (e as Error).message }, bubbles: true, composed: true }));
+    }
   }
 
   protected override async getUpdateComplete(): Promise<boolean> {
