@@ -67,39 +67,18 @@ export function eddingtonPosterior(lnPrior: LnPrior, xObs: number, sigmaDex: num
 }
 
 /**
- * The grid point of largest ln posterior on a grid of PEAK_POINTS over ±10σ around `centre` (steps of
- * σ/20; σ/5 with 101 points). It only places the integration grid, which spans ±10σ around it, so a peak
- * off by up to σ/10 changes the median by the integration's own error only (~1e-6 σ; eddington.test.ts).
+ * ln posterior (ln prior − (x − x_obs)²/2σ², up to a constant) on n points over ±10σ around `centre`,
+ * into lw[0..n): the grid's first point, its step and the index of its largest value. Throws if the
+ * prior vanishes over the whole grid.
  */
-function posteriorPeak(lnPrior: LnPrior, xObs: number, sigmaDex: number, centre: number, PEAK_POINTS: number): number {
-  const h = (2 * HALF_WIDTH_SIGMA * sigmaDex) / (PEAK_POINTS - 1);
+function lnPosteriorOnGrid(lnPrior: LnPrior, xObs: number, sigmaDex: number, centre: number, n: number, lw: Float64Array): { x0: number; h: number; iTop: number; top: number } {
+  const h = (2 * HALF_WIDTH_SIGMA * sigmaDex) / (n - 1);
   const x0 = centre - HALF_WIDTH_SIGMA * sigmaDex;
   const prior = lnPrior.onGrid ? gridBuf : undefined;
-  if (prior) lnPrior.onGrid!(x0, h, PEAK_POINTS, prior);
+  if (prior) lnPrior.onGrid!(x0, h, n, prior);
   let top = Number.NEGATIVE_INFINITY;
   let iTop = 0;
-  for (let i = 0; i < PEAK_POINTS; i++) {
-    const x = x0 + i * h;
-    const d = (x - xObs) / sigmaDex;
-    const lw = (prior ? prior[i] : lnPrior(x)) - 0.5 * d * d;
-    if (lw > top) {
-      top = lw;
-      iTop = i;
-    }
-  }
-  if (!Number.isFinite(top)) throw new RangeError('Eddington correction: the mass-function prior vanishes over the whole ±10σ range of the measured mass');
-  return x0 + iTop * h;
-}
-
-function posteriorOnGrid(lnPrior: LnPrior, xObs: number, sigmaDex: number, centre: number, POINTS: number): { peak: number; median: number; mean: number } {
-  const h = (2 * HALF_WIDTH_SIGMA * sigmaDex) / (POINTS - 1);
-  const x0 = centre - HALF_WIDTH_SIGMA * sigmaDex;
-  const lw = lwBuf;
-  const prior = lnPrior.onGrid ? gridBuf : undefined;
-  if (prior) lnPrior.onGrid!(x0, h, POINTS, prior);
-  let top = Number.NEGATIVE_INFINITY;
-  let iTop = 0;
-  for (let i = 0; i < POINTS; i++) {
+  for (let i = 0; i < n; i++) {
     const x = x0 + i * h;
     const d = (x - xObs) / sigmaDex;
     lw[i] = (prior ? prior[i] : lnPrior(x)) - 0.5 * d * d;
@@ -109,12 +88,29 @@ function posteriorOnGrid(lnPrior: LnPrior, xObs: number, sigmaDex: number, centr
     }
   }
   if (!Number.isFinite(top)) throw new RangeError('Eddington correction: the mass-function prior vanishes over the whole ±10σ range of the measured mass');
+  return { x0, h, iTop, top };
+}
+
+/**
+ * The grid point of largest ln posterior on a grid of n points over ±10σ around `centre` (steps of
+ * σ/20 with 401 points; σ/5 with 101). It only places the integration grid, which spans ±10σ around it, so a peak
+ * off by up to σ/10 changes the median by the integration's own error only (~1e-6 σ; eddington.test.ts).
+ */
+function posteriorPeak(lnPrior: LnPrior, xObs: number, sigmaDex: number, centre: number, n: number): number {
+  const { x0, h, iTop } = lnPosteriorOnGrid(lnPrior, xObs, sigmaDex, centre, n, lwBuf);
+  return x0 + iTop * h;
+}
+
+/** The posterior's median and mean, by the trapezoid on n points over ±10σ around `centre`. */
+function posteriorOnGrid(lnPrior: LnPrior, xObs: number, sigmaDex: number, centre: number, n: number): { median: number; mean: number } {
+  const lw = lwBuf;
+  const { x0, h, top } = lnPosteriorOnGrid(lnPrior, xObs, sigmaDex, centre, n, lw);
   const w = wBuf;
   let total = 0;
   let first = 0;
-  for (let i = 0; i < POINTS; i++) {
+  for (let i = 0; i < n; i++) {
     w[i] = Math.exp(lw[i] - top);
-    const edge = i === 0 || i === POINTS - 1 ? 0.5 : 1;
+    const edge = i === 0 || i === n - 1 ? 0.5 : 1;
     total += edge * w[i];
     first += edge * w[i] * (x0 + i * h);
   }
@@ -122,7 +118,7 @@ function posteriorOnGrid(lnPrior: LnPrior, xObs: number, sigmaDex: number, centr
   // quadratic there (the density is linear across the interval).
   let acc = 0;
   let median = centre;
-  for (let i = 0; i < POINTS - 1; i++) {
+  for (let i = 0; i < n - 1; i++) {
     const a = w[i];
     const b = w[i + 1];
     const piece = 0.5 * (a + b);
@@ -135,7 +131,7 @@ function posteriorOnGrid(lnPrior: LnPrior, xObs: number, sigmaDex: number, centr
     }
     acc += piece;
   }
-  return { peak: x0 + iTop * h, median, mean: first / total };
+  return { median, mean: first / total };
 }
 
 /** First-order shift α σ² ln10 for dn/dlog M ∝ M^−α (the small-σ limit of eddingtonPosterior), dex. */
