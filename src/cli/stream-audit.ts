@@ -36,14 +36,16 @@ async function backpressure(): Promise<void> {
  * Writes pieces that together make whole lines (a line break follows the last): with `out.write`
  * (standard output) as they come, gathered to 64 kB; otherwise joined into one `out` call.
  */
-async function writePieces(pieces: Iterable<string>, out: LineOut): Promise<void> {
+async function writePieces(pieces: Iterable<string> | AsyncIterable<string>, out: LineOut): Promise<void> {
   const write = out.write;
   if (!write) {
-    out([...pieces].join(''));
+    const whole: string[] = [];
+    for await (const p of pieces) whole.push(p);
+    out(whole.join(''));
     return;
   }
   let buf = '';
-  for (const p of pieces) {
+  for await (const p of pieces) {
     buf += p;
     if (buf.length > 1 << 16) {
       write(buf);
@@ -54,34 +56,16 @@ async function writePieces(pieces: Iterable<string>, out: LineOut): Promise<void
   write(buf + '\n');
 }
 
-/**
- * The Markdown summary as the rows come: the head, one paragraph per galaxy, then the sample level
- * from the tally. With `out.write` the text goes out in pieces of about 64 kB; otherwise it is one
- * `out` call. Either way the text is auditMarkdown's, followed by a line break.
- */
-async function streamMarkdown(prep: PreparedAudit, rows: AsyncIterable<GalaxyRow>, out: LineOut): Promise<void> {
+/** The Markdown summary as the rows come: the head, one paragraph per galaxy, then the sample level from the tally. */
+async function* markdownPieces(prep: PreparedAudit, rows: AsyncIterable<GalaxyRow>): AsyncGenerator<string> {
   const c = prep.choices;
-  const write = out.write;
-  const whole: string[] = [];
-  let buf = '';
-  const put = async (text: string): Promise<void> => {
-    if (!write) return void whole.push(text);
-    buf += text;
-    if (buf.length > 1 << 16) {
-      write(buf);
-      buf = '';
-      await backpressure();
-    }
-  };
   const tally = newTally(prep);
-  await put(markdownHead(c, prep.parsed.fileErrors, prep.parsed.fileWarnings));
+  yield markdownHead(c, prep.parsed.fileErrors, prep.parsed.fileWarnings);
   for await (const g of rows) {
-    await put(markdownGalaxy(g, c));
+    yield markdownGalaxy(g, c);
     tallyRow(prep, tally, g);
   }
-  await put(markdownTail(sampleLevel(prep, tally), c, AUDIT_CAUTION));
-  if (write) write(buf + '\n');
-  else out(whole.join(''));
+  yield markdownTail(sampleLevel(prep, tally), c, AUDIT_CAUTION);
 }
 
 /**
@@ -97,7 +81,7 @@ export async function streamAudit(csv: string, choices: AuditChoices, jobs: numb
   if (parsed.fatal) throw new CliError(`sample: ${parsed.fatal}`);
   const rows = auditRowsInOrder(prep, jobs, entry);
   if (fmt === 'md') {
-    await streamMarkdown(prep, rows, out);
+    await writePieces(markdownPieces(prep, rows), out); // auditMarkdown's text, then a line break
     return;
   }
   if (fmt === 'csv') {
