@@ -154,8 +154,9 @@ export class AuditController {
     const slot = this.pool(2)[1];
     this.call(slot, (api) => api.warm(req)).then(
       (r) => {
-        if (this.slots[1] === slot) this.secondReady = r === 'done';
-        if (this.slots[1] === slot) this.readying = false;
+        if (this.slots[1] !== slot) return; // replaced meanwhile: start() reset both flags
+        this.secondReady = r === 'done';
+        this.readying = false;
       },
       () => undefined, // a lost worker restarts the set (crashed), which starts over
     );
