@@ -1,4 +1,5 @@
 import { bucketQuantiles, fillBuckets, layoutBuckets, makeBuckets, quantilesFromBuckets, type Buckets } from '../numeric/quantile-buckets.js';
+import { windowMedian } from '../numeric/window-median.js';
 import type { HaloModel } from '../halos/halo-model.js';
 import { GRID_DLOG10M, lnMassFunctionGrid } from '../halos/mass-function-grid.js';
 import type { MassToLightTable } from '../stars/mass-to-light.js';
@@ -167,7 +168,7 @@ function scratchVectors(n: number): Float64Array[] {
 /**
  * Each draw's cell in the M/L grid and its fractional position, computed once per set of shared draws
  * and used by every IMF's table (they share the grid: gridPositionLog), with the ranges the statistics'
- * bucket bounds need (cells, base, ceilings, accretion). Buffers are reused from galaxy to galaxy; the
+ * bucket bounds need (cells, base, ceiling). Buffers are reused from galaxy to galaxy; the
  * cache holds only the last set of draws.
  */
 interface CellWeights {
@@ -178,12 +179,12 @@ interface CellWeights {
   /** Smallest and largest age and wavelength cell index, and the ranges of the shared vectors. */
   readonly ranges: {
     aLo: number; aHi: number; jLo: number; jHi: number;
-    baseLo: number; baseHi: number; ceilLo: number; ceilHi: number; cvLo: number; cvHi: number; accLo: number; accHi: number;
+    baseLo: number; baseHi: number; ceilLo: number; ceilHi: number;
   };
 }
 let cellBuf: CellWeights = {
   cell: new Int32Array(0), ageIndex: new Int32Array(0), tx: new Float64Array(0), ty: new Float64Array(0),
-  ranges: { aLo: 0, aHi: 0, jLo: 0, jHi: 0, baseLo: 0, baseHi: 0, ceilLo: 0, ceilHi: 0, cvLo: 0, cvHi: 0, accLo: 0, accHi: 0 },
+  ranges: { aLo: 0, aHi: 0, jLo: 0, jHi: 0, baseLo: 0, baseHi: 0, ceilLo: 0, ceilHi: 0 },
 };
 let cellFor: { d: SharedDraws; nAge: number; nLam: number } | undefined;
 function cellWeights(d: SharedDraws, tab: MassToLightTable): CellWeights {
@@ -219,9 +220,7 @@ function cellWeights(d: SharedDraws, tab: MassToLightTable): CellWeights {
     if (b > baseHi) baseHi = b;
   }
   const [ceilLo, ceilHi] = rangeOf(d.logCeil, n);
-  const [cvLo, cvHi] = rangeOf(d.logCeilCv, n);
-  const [accLo, accHi] = d.logAccretedBaryons ? rangeOf(d.logAccretedBaryons, n) : [0, 0];
-  Object.assign(cellBuf.ranges, { aLo, aHi, jLo, jHi, baseLo, baseHi, ceilLo, ceilHi, cvLo, cvHi, accLo, accHi });
+  Object.assign(cellBuf.ranges, { aLo, aHi, jLo, jHi, baseLo, baseHi, ceilLo, ceilHi });
   cellFor = { d, nAge, nLam };
   return cellBuf;
 }
@@ -238,26 +237,22 @@ function rangeOf(a: Float64Array, n: number): [number, number] {
 }
 
 /**
- * Bounds of the M/L table's terms over the cells the draws use: log10 M⋆ − base = surv − lnu and −lnu
- * are convex combinations of the four corners of each draw's cell (the bilinear rule), so they lie
- * within the corners' range over those cells.
+ * Bounds of the M/L table's term over the cells the draws use: log10 M⋆ − base = surv − lnu is a
+ * convex combination of the four corners of each draw's cell (the bilinear rule), so it lies within
+ * the corners' range over those cells.
  */
-function tableBounds(tab: MassToLightTable, r: CellWeights['ranges']): { dLo: number; dHi: number; nLo: number; nHi: number } {
+function tableBounds(tab: MassToLightTable, r: CellWeights['ranges']): { dLo: number; dHi: number } {
   let dLo = Infinity;
   let dHi = -Infinity;
-  let nLo = Infinity;
-  let nHi = -Infinity;
   for (let i = r.aLo; i <= r.aHi + 1; i++) {
     for (let j = r.jLo; j <= r.jHi + 1; j++) {
       const l = tab.logLnu[i * tab.nLam + j];
       const dv = tab.logSurv[i] - l;
       if (dv < dLo) dLo = dv;
       if (dv > dHi) dHi = dv;
-      if (-l < nLo) nLo = -l;
-      if (-l > nHi) nHi = -l;
     }
   }
-  return { dLo, dHi, nLo, nHi };
+  return { dLo, dHi };
 }
 
 /** Puts value v (index i) into its bucket (quantile-buckets.ts: monotone in v, NaN in bucket 0). */
@@ -269,12 +264,9 @@ function bucket(bk: Buckets, i: number, v: number): void {
   bk.counts[b]++;
 }
 
-/** The buckets of the five vectors of imfStatistics, reused from call to call. */
+/** The buckets of log10 M⋆ and log10 ε_req in imfStatistics (the single medians take windowMedian), reused from call to call. */
 const bkM = makeBuckets();
 const bkE = makeBuckets();
-const bkC = makeBuckets();
-const bkR = makeBuckets();
-const bkF = makeBuckets();
 
 /** Local slope α of dn/dlnM ∝ M^−α at M (centred difference over ±0.041 dex). */
 function localSlope(halo: HaloModel, m: number, z: number): number {
@@ -310,7 +302,7 @@ export function imfStatistics(tab: MassToLightTable, d: SharedDraws, ed: Eddingt
   const S = tab.logSurv;
   const nLam = tab.nLam;
   const { cell, ageIndex, tx: txs, ty: tys } = w;
-  // Each vector's bucket counts are made in this loop (quantile-buckets.ts), over bounds known before it:
+  // log10 M⋆'s and log10 ε_req's bucket counts are made in this loop (quantile-buckets.ts), over bounds known before it:
   // the look's own ranges, or the M/L table's corners over the draws' cells plus the shared vectors' ranges.
   const r = w.ranges;
   const t = tableBounds(tab, r);
@@ -320,11 +312,6 @@ export function imfStatistics(tab: MassToLightTable, d: SharedDraws, ed: Eddingt
   const vHi = look ? look.range.lmMax : r.baseHi + t.dHi;
   const useM = !kept && layoutBuckets(bkM, nv, vLo, vHi);
   const useE = !kept && layoutBuckets(bkE, nv, look ? look.range.leMin : vLo - r.ceilHi, look ? look.range.leMax : vHi - r.ceilLo);
-  const useC = layoutBuckets(bkC, nv, vLo - r.cvHi, vHi - r.cvLo);
-  const fLo = r.baseLo + t.nLo;
-  const fHi = r.baseHi + t.nHi;
-  const useR = !!acc && layoutBuckets(bkR, nv, fLo - r.accHi, fHi - r.accLo);
-  const useF = !!lformed && layoutBuckets(bkF, nv, fLo, fHi);
   const base = d.base;
   const logCeil = d.logCeil;
   const logCeilCv = d.logCeilCv;
@@ -353,7 +340,6 @@ export function imfStatistics(tab: MassToLightTable, d: SharedDraws, ed: Eddingt
     if (useE) bucket(bkE, i, e);
     const ecv = v - logCeilCv[i];
     lepsCv[i] = ecv;
-    if (useC) bucket(bkC, i, ecv);
     if (e > 0) over++;
     if (e > cosmo[i]) overCosmo++;
     if (e > lRef) strained++;
@@ -362,11 +348,7 @@ export function imfStatistics(tab: MassToLightTable, d: SharedDraws, ed: Eddingt
       const f = v - surv;
       const rr = f - acc[i];
       lratio![i] = rr;
-      if (useR) bucket(bkR, i, rr);
-      if (lformed) {
-        lformed[i] = f;
-        if (useF) bucket(bkF, i, f);
-      }
+      if (lformed) lformed[i] = f;
       if (rr > 0) tbOver++;
     }
   }
@@ -377,13 +359,13 @@ export function imfStatistics(tab: MassToLightTable, d: SharedDraws, ed: Eddingt
   const [le05, leMed, le95, leA, leB] = kept ? quantilesFromBuckets(leps, nv, [0.05, 0.5, 0.95, qa, qb], look.bkLe) : quantiles(leps, [0.05, 0.5, 0.95, qa, qb], bkE, useE);
   const leErr = 0.5 * (leB - leA);
   const med = 10 ** leMed;
-  const medCv = 10 ** quantiles(lepsCv, [0.5], bkC, useC)[0];
+  const medCv = 10 ** windowMedian(lepsCv, nv);
   const epsHost = Math.min(1, Math.max(med, ed.epsRef));
   const shift = eddingtonPosterior(hostPrior(ed, epsHost), lmMed, ed.sigmaDex).shiftMedianDex;
   const mHost = Math.min(Math.max(10 ** lmMed / (ed.halo.baryonFraction * epsHost), 1e3), 1e18);
   const alpha = localSlope(ed.halo, mHost, ed.z);
   const debiased = med * 10 ** -shift;
-  const ratioMed = lratio ? 10 ** quantiles(lratio, [0.5], bkR, useR)[0] : undefined;
+  const ratioMed = lratio ? 10 ** windowMedian(lratio, nv) : undefined;
   const result: ImfResult = {
     verdict: verdictFor(med, ed.epsRef),
     log_mstar_median: lmMed,
@@ -409,7 +391,7 @@ export function imfStatistics(tab: MassToLightTable, d: SharedDraws, ed: Eddingt
     result,
     eddingtonSlopeAlpha: alpha,
     eddingtonFirstOrderDex: eddingtonFirstOrderShiftDex(alpha, ed.sigmaDex),
-    formedMassMedianMsun: lformed ? 10 ** quantiles(lformed, [0.5], bkF, useF)[0] : undefined,
+    formedMassMedianMsun: lformed ? 10 ** windowMedian(lformed, nv) : undefined,
   };
 }
 
