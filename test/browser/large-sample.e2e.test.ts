@@ -147,10 +147,14 @@ describe('large samples in the page', () => {
     importCsv(app, sampleCsv(3000), 'large.csv');
     await until(() => /Auditing… [1-9]\d*\/3000/.test(statusText(app)), 'the large run under way');
     const failed = waitFor(app, 'audit-failed', (d) => /stopped answering/.test(d.message ?? ''));
-    const recovered = waitFor(app, 'audit-complete', () => true, 50000, true);
     expect(ctl.stopWorkerSilently('main')).to.equal(true);
     expect((await failed).message).to.match(/stopped answering .*restarted and the last good inputs were run again/);
-    await recovered;
+    // The restart comes restartBaseMs after the failure, so this wait is in place before it. The restarted
+    // worker is judged by the page's own threshold again: a fresh worker building its tables on a loaded
+    // machine can be quiet for more than the 1.5 s above, and a second failure now fails the test at once
+    // with its message instead of waiting out the time limit.
+    ctl.livenessMs = 15000;
+    await waitFor(app, 'audit-complete');
     expect(statusText(app)).to.contain('Audited 8 galaxies');
     const alert = shadowAll(app.shadowRoot!, '.error')[0]?.textContent ?? '';
     expect(alert).to.contain('stopped answering');

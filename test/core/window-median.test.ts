@@ -45,13 +45,17 @@ describe('the median by a window around a pilot estimate', () => {
   });
 
   it('gives what the bucketed median gives when a NaN is in the vector (in the pilot or after it), and works below the pilot size', () => {
-    for (const at of [3, 5000]) {
+    // one NaN in the pilot, one after it, and 40 after it at scattered places (a small LCG), so that some
+    // lie among the window's values, where the selection would place them anywhere
+    let s = 12345;
+    const scattered = Array.from({ length: 40 }, () => 1100 + ((s = (s * 1103515245 + 12345) % 2147483648) % 7800));
+    for (const at of [[3], [5000], scattered]) {
       const xs = sample(9000, 'normal', 11);
-      xs[at] = Number.NaN;
-      // NaN goes to the lowest bucket there (quantile-buckets.ts), so the median is that of the rest shifted by one rank
+      for (const i of at) xs[i] = Number.NaN;
+      // NaN goes to the lowest bucket there (quantile-buckets.ts), so the median is that of the rest shifted by one rank per NaN
       const rest = Float64Array.from(xs.filter((v) => !Number.isNaN(v))).sort();
       const h = (9000 - 1) * 0.5;
-      const r0 = Math.floor(h) - 1;
+      const r0 = Math.floor(h) - (9000 - rest.length);
       expect(windowMedian(xs, 9000)).toBe(rest[r0] + (h - Math.floor(h)) * (rest[r0 + 1] - rest[r0]));
     }
     const short = sample(1000, 'lognormal', 3);

@@ -21,7 +21,7 @@ let inside = new Float64Array(0);
  * - one pass counts the values below and above the window and gathers those inside it;
  * - when both ranks of the median fall among the gathered values they are selected there; otherwise
  *   (a miss, ≈ 5e-4 for i.i.d. values; NaN in a; fewer than MIN_VALUES values) bucketQuantiles answers.
- * One or two comparisons per value and no scatter into counts: cheaper than bucketing a vector whose
+ * Two comparisons and one store per value, without branches, and no scatter into counts: cheaper than bucketing a vector whose
  * median alone is wanted.
  */
 export function windowMedian(a: Float64Array, n: number): number {
@@ -38,22 +38,33 @@ export function windowMedian(a: Float64Array, n: number): number {
   let below = 0;
   let m = 0;
   let above = 0;
+  // Without branches (which of the three a value is cannot be predicted): every value is written at the
+  // cursor, which moves on only for a value inside the window; a NaN is neither below nor above, so it
+  // is gathered, and found below.
   for (let i = 0; i < n; i++) {
     const v = a[i];
-    if (v < lo) below++;
-    else if (v <= hi) g[m++] = v;
-    else if (v > hi) above++;
+    const b = +(v < lo);
+    const c = +(v > hi);
+    g[m] = v;
+    m += 1 - b - c;
+    below += b;
+    above += c;
   }
   const h = (n - 1) * 0.5;
   const r0 = Math.floor(h);
   const r1 = h === r0 ? r0 : r0 + 1;
-  // every value counted (a NaN is in none of the three) and both ranks among the gathered ones
-  if (below + m + above !== n || r0 < below || r1 >= below + m) return bucketQuantiles(a, n, [0.5])[0];
+  // both ranks among the gathered values, and no NaN among them
+  if (r0 < below || r1 >= below + m || hasNaN(g, m)) return bucketQuantiles(a, n, [0.5])[0];
   const v0 = selectKth(g, r0 - below, 0, m - 1);
   if (r1 === r0) return v0;
   // the next order statistic: everything right of r0 − below is ≥ v0 after the selection
   const v1 = selectKth(g, r1 - below, r0 - below, m - 1);
   return v0 + (h - r0) * (v1 - v0);
+}
+
+function hasNaN(a: Float64Array, n: number): boolean {
+  for (let i = 0; i < n; i++) if (a[i] !== a[i]) return true;
+  return false;
 }
 
 /** For tests: the pilot's size, so a vector can be built whose first values mislead the window. */
