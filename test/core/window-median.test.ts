@@ -6,10 +6,15 @@ import { windowMedian, WINDOW_MEDIAN_PILOT } from '../../src/core/numeric/window
 // Reference: the type-7 median of the sorted sample (Hyndman & Fan 1996), bit for bit.
 const sortedMedian = (xs: Float64Array, n: number): number => quantileSorted(Float64Array.from(xs.subarray(0, n)).sort(), 0.5);
 
+/** Uniform deviates in [0, 1) from a seeded 32-bit LCG (multiplier 1103515245, increment 12345; common practice, no source). */
+const lcg = (seed: number): (() => number) => {
+  let s = seed;
+  return () => (s = (Math.imul(s, 1103515245) + 12345) >>> 0) / 2 ** 32;
+};
+
 /** A seeded LCG sample in random order (the Monte Carlo case the window is made for). */
 const sample = (n: number, shape: string, seed: number): Float64Array => {
-  let s = seed;
-  const u = (): number => ((s = (Math.imul(s, 1103515245) + 12345) >>> 0) / 2 ** 32);
+  const u = lcg(seed);
   const xs = new Float64Array(n);
   for (let i = 0; i < n; i++) {
     if (shape === 'normal') xs[i] = Math.sqrt(-2 * Math.log(u() + 1e-12)) * Math.cos(6.283 * u());
@@ -45,10 +50,10 @@ describe('the median by a window around a pilot estimate', () => {
   });
 
   it('gives what the bucketed median gives when a NaN is in the vector (in the pilot or after it), and works below the pilot size', () => {
-    // one NaN in the pilot, one after it, and 40 after it at scattered places (a small LCG), so that some
-    // lie among the window's values, where the selection would place them anywhere
-    let s = 12345;
-    const scattered = Array.from({ length: 40 }, () => 1100 + ((s = (s * 1103515245 + 12345) % 2147483648) % 7800));
+    // one NaN in the pilot, one after it, and 40 after it at scattered places, so that some lie among
+    // the window's values, where the selection would place them anywhere
+    const u = lcg(12345);
+    const scattered = Array.from({ length: 40 }, () => WINDOW_MEDIAN_PILOT + Math.floor(u() * (9000 - WINDOW_MEDIAN_PILOT)));
     for (const at of [[3], [5000], scattered]) {
       const xs = sample(9000, 'normal', 11);
       for (const i of at) xs[i] = Number.NaN;

@@ -21,8 +21,8 @@ let inside = new Float64Array(0);
  * - one pass counts the values below and above the window and gathers those inside it;
  * - when both ranks of the median fall among the gathered values they are selected there; otherwise
  *   (a miss, ≈ 5e-4 for i.i.d. values; NaN in a; fewer than MIN_VALUES values) bucketQuantiles answers.
- * Two comparisons and one store per value, without branches, and no scatter into counts: cheaper than bucketing a vector whose
- * median alone is wanted.
+ * Two comparisons and one store per value, without branches, and no scatter into counts: cheaper
+ * than bucketing a vector whose median alone is wanted.
  */
 export function windowMedian(a: Float64Array, n: number): number {
   if (n < MIN_VALUES) return bucketQuantiles(a, n, [0.5])[0];
@@ -62,6 +62,7 @@ export function windowMedian(a: Float64Array, n: number): number {
   return v0 + (h - r0) * (v1 - v0);
 }
 
+/** Whether a NaN is among the first n values of a (the window's gathered values: far fewer than the vector). */
 function hasNaN(a: Float64Array, n: number): boolean {
   for (let i = 0; i < n; i++) if (a[i] !== a[i]) return true;
   return false;
