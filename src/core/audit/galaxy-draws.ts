@@ -113,6 +113,15 @@ export interface GalaxyDrawStream {
   extend(n: number): void;
 }
 
+/** Draws whose deviates are made in one go before their arithmetic (galaxyDrawStream), and the buffers that hold them. */
+const DEVIATE_BLOCK = 512;
+const devAlt = new Float64Array(DEVIATE_BLOCK);
+const devZ = new Float64Array(DEVIATE_BLOCK);
+const devAge = new Float64Array(DEVIATE_BLOCK);
+const devMag = new Float64Array(DEVIATE_BLOCK);
+const devBeta = new Float64Array(DEVIATE_BLOCK);
+const devMass = new Float64Array(DEVIATE_BLOCK);
+
 /**
  * @param scratch where the draws' arrays come from (reused between calls; valid until the next call
  *   with the same scratch); fresh arrays when absent.
@@ -157,18 +166,32 @@ export function galaxyDrawStream(g: GalaxyInput, capacity: number, seed: number,
   const tn = tAge.length;
   const tx1 = bg.x1;
   const draws = { n: 0, z, lnOnePlusZ: lnZ1, lnAgeGyr: lnT, log10AgeMyr: lAge, log10LambdaRestUm: lLam, log10Lnu: lL, log10MassRef: lM, excluded: 0 };
+  /** The deviates of draws k0 … k0 + m − 1 into the block buffers, in the stream's order per draw. */
+  const deviates = (m: number): void => {
+    // Only the deviates this row needs are drawn, always in the same order, so the main run and the
+    // fixed-redshift checks of one galaxy share their random numbers (common random numbers). A loop of
+    // its own, so that the generator is inlined into it.
+    for (let b = 0; b < m; b++) {
+      devAlt[b] = needAlt ? rnd.uniform() : 1;
+      devZ[b] = needZ ? rnd.normal() : 0;
+      devAge[b] = rnd.uniform();
+      devMag[b] = needMag ? rnd.normal() : 0;
+      devBeta[b] = needBeta ? rnd.normal() : 0;
+      devMass[b] = needMass ? rnd.normal() : 0;
+    }
+  };
   const extend = (n: number): void => {
     if (n > capacity) throw new RangeError(`draws: ${n} asked for, room for ${capacity}`);
     let excluded = 0;
     for (let k = draws.n; k < n; k++) {
-      // Only the deviates this row needs are drawn, always in the same order, so the main run and the
-      // fixed-redshift checks of one galaxy share their random numbers (common random numbers).
-      const uAlt = needAlt ? rnd.uniform() : 1;
-      const gz = needZ ? rnd.normal() : 0;
-      const uAge = rnd.uniform();
-      const gMag = needMag ? rnd.normal() : 0;
-      const gBeta = needBeta ? rnd.normal() : 0;
-      const gMass = needMass ? rnd.normal() : 0;
+      const b = (k - draws.n) % DEVIATE_BLOCK;
+      if (b === 0) deviates(Math.min(DEVIATE_BLOCK, n - k));
+      const uAlt = devAlt[b];
+      const gz = devZ[b];
+      const uAge = devAge[b];
+      const gMag = devMag[b];
+      const gBeta = devBeta[b];
+      const gMass = devMass[b];
       let zk: number;
       let isAlt: boolean;
       if (zOverride) {

@@ -340,16 +340,17 @@ export function imfStatistics(tab: MassToLightTable, d: SharedDraws, ed: Eddingt
     if (useE) bucket(bkE, i, e);
     const ecv = v - logCeilCv[i];
     lepsCv[i] = ecv;
-    if (e > 0) over++;
-    if (e > cosmo[i]) overCosmo++;
-    if (e > lRef) strained++;
+    // counted without branches: near a threshold which side a draw falls cannot be predicted
+    over += +(e > 0);
+    overCosmo += +(e > cosmo[i]);
+    strained += +(e > lRef);
     if (acc) {
       // log10 (1 − R) at the draw's age: the same interpolation as logSurvivingAt
       const f = v - surv;
       const rr = f - acc[i];
       lratio![i] = rr;
       if (lformed) lformed[i] = f;
-      if (rr > 0) tbOver++;
+      tbOver += +(rr > 0);
     }
   }
   /** The quantiles of a vector from the counts of this loop, or bucketed on its own where they could not be laid out. */

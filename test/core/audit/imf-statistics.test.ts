@@ -49,13 +49,19 @@ describe('imfStatistics: the shared-cell M/L rule, bucket quantiles and tabulate
       let over = 0;
       let cosmo = 0;
       let tb = 0;
+      let strained = 0;
       for (let i = 0; i < n; i++) {
         const e = lm(i) - d.logCeil[i];
         if (e > 0) over++;
+        if (e > Math.log10(ed.epsRef)) strained++;
         if (e > d.cosmoOffset[i]) cosmo++;
         if (lm(i) - logSurvivingAt(tab, d.gx[i]) - d.logAccretedBaryons![i] > 0) tb++;
       }
       expect(r.p_over_budget).toBe(over / n);
+      // p_strained: the share of draws with ε_req above the reference efficiency
+      expect(strained).toBeGreaterThan(0);
+      expect(strained).toBeLessThan(n);
+      expect(r.p_strained).toBe(strained / n);
       expect(r.p_over_budget_cosmo).toBe(cosmo / n);
       expect(r.p_time_budget_over).toBe(tb / n);
       expect(r.time_budget_ratio_median).toBe(10 ** quantileSorted(sorted((i) => lm(i) - logSurvivingAt(tab, d.gx[i]) - d.logAccretedBaryons![i]), 0.5));

@@ -67,7 +67,7 @@ describe('base parameters and preset uncertainties', () => {
     const om: number[] = [];
     const h: number[] = [];
     for (let i = 0; i < n; i++) {
-      const p = perturbCosmology(PLANCK18, drawBaseDelta(L, rng.normal));
+      const p = perturbCosmology(PLANCK18, drawBaseDelta(L, () => rng.normal()));
       om.push(p.omegaM);
       h.push(p.h0);
     }
@@ -104,7 +104,7 @@ describe('covariance checks and Cholesky factor', () => {
     const acc = COV.map((r) => r.map(() => 0));
     const keys = ['omegaBh2', 'omegaCh2', 'h0', 'ns', 'sigma8'] as const;
     for (let k = 0; k < n; k++) {
-      const d = drawBaseDelta(L, rng.normal);
+      const d = drawBaseDelta(L, () => rng.normal());
       keys.forEach((a, i) => keys.forEach((b, j) => (acc[i][j] += d[a] * d[b])));
     }
     // the sample correlation's standard error is (1 − ρ²)/√n ≤ 0.005
