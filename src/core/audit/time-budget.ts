@@ -42,7 +42,9 @@ function ageInverse(bg: Background): AgeInverse {
   for (let i = 0; i < n; i++) lnT[i] = Math.log(bg.ageGyr(Math.expm1(i * h)));
   // guess[c]: the last node with lnT ≥ the top of cell c of a uniform index over [lnT[n−1], lnT[0]]
   const l0 = lnT[n - 1];
-  const cells = n;
+  // four cells per node: narrower than the closest two nodes (|Δ ln t| ≥ 0.9 h), so a cell holds at most
+  // one node and the walk below is at most one step
+  const cells = 4 * n;
   const dl = (lnT[0] - l0) / cells;
   const guess = new Int32Array(cells + 1);
   for (let c = 0, i = 0; c <= cells; c++) {
@@ -183,18 +185,15 @@ export function logAccretedBaryonsOfDraws(
     const i0 = Math.min(Math.floor(t0), ng - 2);
     const g0 = g[i0] + (t0 - i0) * (g[i0 + 1] - g[i0]);
     // the history's ΔM_h = −m0 expm1(−10 ln(y/y0)), y = y0 + k (G(z_start) − G(z)), y0 = (m0/1e12)^−0.1,
-    // as log10 m0 + log10(1 − (1 + e)^−10), e = k ΔG / y0: no powers and no cancellation in y/y0. For
-    // e ≥ 1e-3 the tenth power by four products (1 − q^10 then loses ≤ 1e-16/e ≤ 1e-13 relative),
-    // below it −expm1(−10 log1p(e))
+    // as log10 m0 + log10(1 − (1 + e)^−10), e = k ΔG / y0: no powers and no cancellation in y/y0
     const lm = log10HaloMassMsun[i];
     const e = k * (gStart - g0) * Math.exp(c10 * (lm - 12));
-    let frac: number;
-    if (e >= 1e-3) {
-      const q = 1 / (1 + e);
-      const q2 = q * q;
-      const q4 = q2 * q2;
-      frac = 1 - q4 * q4 * q2;
-    } else frac = -Math.expm1(-10 * Math.log1p(e));
+    // 1 − q¹⁰ = (1 − q)(1 + q)(1 + q² + q⁴ + q⁶ + q⁸), q = 1/(1 + e), 1 − q = e q: positive terms only, so
+    // a few ulp for every e ≥ 0 without a branch or a transcendental function
+    const q = 1 / (1 + e);
+    const q2 = q * q;
+    const q4 = q2 * q2;
+    const frac = e * q * (1 + q) * (1 + q2 + q4 + q4 * q2 + q4 * q4);
     out[i] = lfb + lm + Math.log(frac) / Math.LN10;
   }
   return out;

@@ -48,7 +48,8 @@ describe('time budget per draw: logAccretedBaryonsOfDraws equals logAccretedBary
         // rounding only: the same tables and formula, the log1p/expm1 round trips left out; 1e-12
         // relative in ΔM_h is 4.3e-13 in log10 (the tables themselves are good to ~1e-6). Where the
         // interval is short, f = ΔM_h/M_h ≪ 1, the per-point form loses ~2.2e-16 × 10/f relative in
-        // ln(y/y0) (y/y0 = 1 + f/10 rounded), which the batch form avoids with log1p: up to 4e-15/f more.
+        // ln(y/y0) (y/y0 = 1 + f/10 rounded), which the batch form avoids (1 − q¹⁰ as a product of
+        // positive terms): up to 4e-15/f more.
         const f = 10 ** (want[i] - Math.log10(FB) - halo[i]);
         expect(Math.abs(got[i] - want[i])).toBeLessThan(4.4e-13 + 4e-15 / f);
       }
