@@ -292,12 +292,15 @@ export class AuditController {
       if (k > 1) resp = await this.runPool(id, req, k, t0);
       else {
         this.track(id, 1);
-        // With a second worker: a first look here (no reconciliation) and the whole audit there, at once.
+        // With a second worker: a first look here (no reconciliation), then the whole audit there. Started
+        // after the first look answers, not beside it: on a two-core machine the two runs would share the
+        // cores with the page, and the first look (what the user waits for) arrives sooner alone.
         const second = this.secondReady ? this.slots[1] : undefined;
-        whole = second && this.call(second, (api) => api.run(req));
-        whole?.catch(() => undefined); // settled below, or dropped with a newer request
-        const first = this.call(main, (api) => api.run(req, Comlink.proxy((done: number, total: number) => this.onProgress(id, main, 0, done, total)), second !== undefined));
-        resp = await Promise.race([first, whole ?? first]);
+        resp = await this.call(main, (api) => api.run(req, Comlink.proxy((done: number, total: number) => this.onProgress(id, main, 0, done, total)), second !== undefined));
+        if (second && id === this.seq && resp.status !== 'cancelled' && (resp.reconcileLeftOut ?? 0) > 0) {
+          whole = this.call(second, (api) => api.run(req));
+          whole.catch(() => undefined); // settled below, or dropped with a newer request
+        }
       }
       if (!resp || id !== this.seq || resp.status === 'cancelled') return;
       const full = await this.pages(id, main, resp);
@@ -305,7 +308,6 @@ export class AuditController {
       const settling = (full.reconcileLeftOut ?? 0) > 0 && whole !== undefined;
       this.show(id, full, settling, csv, choices);
       if (settling) await this.settle(id, full, whole!, t0);
-      else if (whole) for (const s of this.slots.slice(0, 2)) void s.api.cancel(); // one answer was whole: the other is not needed
       else if (k === 1) this.readySecond(req);
     } catch (e) {
       if (id !== this.seq) return;
