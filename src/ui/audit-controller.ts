@@ -288,23 +288,24 @@ export class AuditController {
       const k = this.poolSize > 1 ? threadsFor(lineCount(csv) - 1, this.poolSize) : 1;
       const req = { id, csv, choices };
       let resp: AuditResponse | undefined;
-      // With a second worker (small samples): a first look on the main worker (no reconciliation)
-      const second = k === 1 && this.secondReady ? this.slots[1] : undefined;
+      let whole: Promise<AuditResponse> | undefined;
       if (k > 1) resp = await this.runPool(id, req, k, t0);
       else {
         this.track(id, 1);
-        resp = await this.call(main, (api) => api.run(req, Comlink.proxy((done: number, total: number) => this.onProgress(id, main, 0, done, total)), second !== undefined));
+        // With a second worker: a first look here (no reconciliation) and the whole audit there, at once.
+        const second = this.secondReady ? this.slots[1] : undefined;
+        whole = second && this.call(second, (api) => api.run(req));
+        whole?.catch(() => undefined); // settled below, or dropped with a newer request
+        const first = this.call(main, (api) => api.run(req, Comlink.proxy((done: number, total: number) => this.onProgress(id, main, 0, done, total)), second !== undefined));
+        resp = await Promise.race([first, whole ?? first]);
       }
       if (!resp || id !== this.seq || resp.status === 'cancelled') return;
-      // ... then, if it left something out, the whole audit on the second. Started once the first look has
-      // answered, not beside it: on a two-core machine the two runs would share the cores with the page,
-      // and the first look (what the user waits for) arrives sooner alone.
-      const whole = second && (resp.reconcileLeftOut ?? 0) > 0 ? this.call(second, (api) => api.run(req)) : undefined;
-      whole?.catch(() => undefined); // settled below, or dropped with a newer request
       const full = await this.pages(id, main, resp);
       if (!full || id !== this.seq) return;
-      this.show(id, full, whole !== undefined, csv, choices);
-      if (whole) await this.settle(id, full, whole, t0);
+      const settling = (full.reconcileLeftOut ?? 0) > 0 && whole !== undefined;
+      this.show(id, full, settling, csv, choices);
+      if (settling) await this.settle(id, full, whole!, t0);
+      else if (whole) for (const s of this.slots.slice(0, 2)) void s.api.cancel(); // one answer was whole: the other is not needed
       else if (k === 1) this.readySecond(req);
     } catch (e) {
       if (id !== this.seq) return;
