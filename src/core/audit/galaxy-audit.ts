@@ -11,6 +11,7 @@ import type { AuditChoices } from './choices.js';
 import type { CeilingTable } from './ceiling.js';
 import { drawGalaxy, galaxyDrawStream, tabulatedBackground, type GalaxyDraws } from './galaxy-draws.js';
 import { DRAW_BLOCK, drawPrecisionOf, FIRST_LOOK, looksFor, normalQuantile, P_CLASS_CHANGE_MAX } from './draw-rule.js';
+import { fillGridCells, type GridCells } from './grid-cells.js';
 import { imfStatistics, makeLookState, medianLook, type ImfResult, type ImfStatistics, type SharedDraws } from './imf-statistics.js';
 import { rescaleBase, rescalePosition } from './imf-rescale.js';
 import { idSeed, makeRandom } from './random.js';
@@ -276,6 +277,15 @@ function mainDraws(ctx: AuditContext, g: GalaxyInput, seed: number, imfTables: r
   const validBuf = mainScratch.i32('valid', nMax);
   const grid = { x: mainScratch.f64('grid.x', nMax), y: mainScratch.f64('grid.y', nMax), base: mainScratch.f64('grid.base', nMax) };
   const logCeilBuf = mainScratch.f64('ceiling.log', nMax);
+  // every IMF's table is on the first one's grid (the looks and imfStatistics check it)
+  const cells: GridCells = {
+    nAge: imfTables[0].nAge,
+    nLam: imfTables[0].nLam,
+    cell: mainScratch.i32('cells.cell', nMax),
+    ageIndex: mainScratch.i32('cells.age', nMax),
+    tx: mainScratch.f64('cells.tx', nMax),
+    ty: mainScratch.f64('cells.ty', nMax),
+  };
   const lfb = Math.log10(halo.baryonFraction);
   const zLook = fixed ? Infinity : normalQuantile(1 - P_CLASS_CHANGE_MAX / looksFor(nMax));
   while (lookBuckets.length < imfTables.length) lookBuckets.push([makeBuckets(), makeBuckets()]);
@@ -289,13 +299,14 @@ function mainDraws(ctx: AuditContext, g: GalaxyInput, seed: number, imfTables: r
     stream.extend(n);
     for (let k = k0; k < n; k++) if (g.log10Mstar !== undefined || Number.isFinite(d.log10Lnu[k])) validBuf[nv++] = k;
     fillGrid(g, d, validBuf, nv0, nv, imfTables[0], refTable, grid);
+    fillGridCells(grid.x, grid.y, nv0, nv, cells);
     ceil.log10HaloMassesAt(d.z, validBuf.subarray(nv0, nv), nv - nv0, undefined, lfb, logCeilBuf.subarray(nv0, nv));
     if (fixed || n >= nMax) break;
     // a look needs half the first look's draws valid; every IMF settled, both errors within the precision
     if (nv >= FIRST_LOOK / 2) {
       let settled = true;
       for (let j = 0; j < imfTables.length && settled; j++) {
-        const m = medianLook(imfTables[j], grid.base, grid.x, grid.y, logCeilBuf, nv, looks[j]);
+        const m = medianLook(imfTables[j], cells, grid.base, logCeilBuf, nv, looks[j]);
         const dist = Math.min(Math.abs(m.logEpsMedian - Math.log10(choices.epsRef)), Math.abs(m.logEpsMedian));
         settled = m.logMstarErrDex <= precision && m.logEpsErrDex <= precision && dist >= zLook * m.logEpsErrDex;
       }
@@ -315,6 +326,7 @@ function mainDraws(ctx: AuditContext, g: GalaxyInput, seed: number, imfTables: r
     gy: grid.y.subarray(0, nv),
     base: grid.base.subarray(0, nv),
     logCeil: logCeilBuf.subarray(0, nv),
+    cells,
   };
 }
 
@@ -339,7 +351,7 @@ export function auditGalaxy(ctx: AuditContext, g: GalaxyInput, index: number, op
   const { headline, imfs } = headlineAndCompared(g, choices);
   const tableOf = (imf: string): MassToLightTable => ctx.cache.table(imf, g.z, ctx.sfh);
   const refTable = g.imfRef ? tableOf(g.imfRef) : undefined;
-  const { d, stop, looks, valid, gx, gy, base, logCeil } = mainDraws(ctx, g, seed, imfs.map(tableOf), refTable, ceil);
+  const { d, stop, looks, valid, gx, gy, base, logCeil, cells } = mainDraws(ctx, g, seed, imfs.map(tableOf), refTable, ceil);
   const n = d.n;
   if (d.excluded) notes.push(`${d.excluded} of ${n} draws put the observed band outside the model's rest range (Lyman-α–1 μm) and were left out`);
   if (valid.length < Math.max(20, 0.01 * n)) throw new RangeError(`row ${g.row} (${g.id}): almost every redshift draw puts the band outside the model's rest range (Lyman-α–1 μm)`);
@@ -350,7 +362,7 @@ export function auditGalaxy(ctx: AuditContext, g: GalaxyInput, index: number, op
   const logCeilCv = ceil.log10HaloMassesAt(d.z, valid, valid.length, sigmaDm, Math.log10(fb), mainScratch.f64('ceiling.logCv', valid.length));
   const acc = drawAccretion(ctx, g, d, valid, logCeil, mainScratch);
   const cosmoSd = ctx.ceilingSdDexAt(g.survey, g.z);
-  const shared: SharedDraws = { n: valid.length, base, gx, gy, logCeil, logCeilCv, logAccretedBaryons: acc, cosmoOffset: ceilingOffsets(choices.seed, g.id, valid.length, cosmoSd, mainScratch) };
+  const shared: SharedDraws = { n: valid.length, base, gx, gy, logCeil, logCeilCv, logAccretedBaryons: acc, cosmoOffset: ceilingOffsets(choices.seed, g.id, valid.length, cosmoSd, mainScratch), cells };
   const sigmaDex = g.log10Mstar !== undefined ? g.log10MstarErr : 0.4 * g.magErr;
   const ed = { halo, z: g.z, sigmaDex, epsRef: choices.epsRef };
   const stats: Record<string, ImfStatistics> = {};

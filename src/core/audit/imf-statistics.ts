@@ -1,10 +1,11 @@
 import { bucketQuantiles, fillBuckets, layoutBuckets, makeBuckets, quantilesFromBuckets, type Buckets } from '../numeric/quantile-buckets.js';
-import { windowMedian } from '../numeric/window-median.js';
+import { WINDOW_MEDIAN_MIN_VALUES, windowMedian } from '../numeric/window-median.js';
 import type { HaloModel } from '../halos/halo-model.js';
 import { GRID_DLOG10M, lnMassFunctionGrid } from '../halos/mass-function-grid.js';
 import type { MassToLightTable } from '../stars/mass-to-light.js';
 import { eddingtonFirstOrderShiftDex, eddingtonPosterior, type LnPrior } from './eddington.js';
 import { medianErrorQuantiles, pClassChange } from './draw-rule.js';
+import { fillGridCells, logMassToLightInCell, type GridCells } from './grid-cells.js';
 import { verdictFor, type Verdict } from './verdict.js';
 
 export interface ImfResult {
@@ -51,6 +52,8 @@ export interface SharedDraws {
   readonly logAccretedBaryons?: Float64Array;
   /** Each draw's offset of log10 M_halo,q from the cosmological parameters, dex. */
   readonly cosmoOffset: Float64Array;
+  /** The draws' cells at gx, gy, when they were made with the draws (grid-cells.ts); found here otherwise. */
+  readonly cells?: GridCells;
 }
 
 export interface EddingtonInputs {
@@ -166,36 +169,44 @@ function scratchVectors(n: number): Float64Array[] {
 }
 
 /**
- * Each draw's cell in the M/L grid and its fractional position, computed once per set of shared draws
- * and used by every IMF's table (they share the grid: gridPositionLog), with the ranges the statistics'
- * bucket bounds need (cells, base, ceiling). Buffers are reused from galaxy to galaxy; the
- * cache holds only the last set of draws.
+ * Each draw's cell in the M/L grid and its weights (grid-cells.ts: the draws' own, or found here once per
+ * set of shared draws), used by every IMF's table, with the ranges the statistics' bucket bounds need
+ * (cells, base, ceilings, accreted baryons). Buffers are reused from galaxy to galaxy; the cache holds
+ * only the last set of draws.
  */
 interface CellWeights {
-  readonly cell: Int32Array;
-  readonly ageIndex: Int32Array;
-  readonly tx: Float64Array;
-  readonly ty: Float64Array;
-  /** Smallest and largest age and wavelength cell index, and the ranges of the shared vectors. */
+  readonly cells: GridCells;
+  /**
+   * Smallest and largest age and wavelength cell index, and the ranges of the shared vectors (those of
+   * the ceiling with cosmic variance and of the accreted baryons only below WINDOW_MEDIAN_MIN_VALUES
+   * draws, where the single medians are bucketed: ±Infinity otherwise).
+   */
   readonly ranges: {
     aLo: number; aHi: number; jLo: number; jHi: number;
     baseLo: number; baseHi: number; ceilLo: number; ceilHi: number;
+    cvLo: number; cvHi: number; accLo: number; accHi: number;
   };
 }
-let cellBuf: CellWeights = {
-  cell: new Int32Array(0), ageIndex: new Int32Array(0), tx: new Float64Array(0), ty: new Float64Array(0),
-  ranges: { aLo: 0, aHi: 0, jLo: 0, jHi: 0, baseLo: 0, baseHi: 0, ceilLo: 0, ceilHi: 0 },
+let ownCells: GridCells = { nAge: 0, nLam: 0, cell: new Int32Array(0), ageIndex: new Int32Array(0), tx: new Float64Array(0), ty: new Float64Array(0) };
+const cellBuf: { cells: GridCells; ranges: CellWeights['ranges'] } = {
+  cells: ownCells,
+  ranges: { aLo: 0, aHi: 0, jLo: 0, jHi: 0, baseLo: 0, baseHi: 0, ceilLo: 0, ceilHi: 0, cvLo: 0, cvHi: 0, accLo: 0, accHi: 0 },
 };
 let cellFor: { d: SharedDraws; nAge: number; nLam: number } | undefined;
 function cellWeights(d: SharedDraws, tab: MassToLightTable): CellWeights {
   const n = d.n;
-  if (cellFor && cellFor.d === d && cellFor.nAge === tab.nAge && cellFor.nLam === tab.nLam) return cellBuf;
-  if (cellBuf.cell.length < n) {
-    const m = Math.max(n, 1024);
-    cellBuf = { cell: new Int32Array(m), ageIndex: new Int32Array(m), tx: new Float64Array(m), ty: new Float64Array(m), ranges: cellBuf.ranges };
-  }
   const { nAge, nLam } = tab;
-  const { cell, ageIndex, tx, ty } = cellBuf;
+  if (cellFor && cellFor.d === d && cellFor.nAge === nAge && cellFor.nLam === nLam) return cellBuf;
+  let cells = d.cells;
+  if (!cells || cells.nAge !== nAge || cells.nLam !== nLam) {
+    if (ownCells.cell.length < n || ownCells.nAge !== nAge || ownCells.nLam !== nLam) {
+      const m = Math.max(n, 1024);
+      ownCells = { nAge, nLam, cell: new Int32Array(m), ageIndex: new Int32Array(m), tx: new Float64Array(m), ty: new Float64Array(m) };
+    }
+    fillGridCells(d.gx, d.gy, 0, n, ownCells);
+    cells = ownCells;
+  }
+  const { cell, ageIndex } = cells;
   let aLo = nAge;
   let aHi = 0;
   let jLo = nLam;
@@ -203,14 +214,8 @@ function cellWeights(d: SharedDraws, tab: MassToLightTable): CellWeights {
   let baseLo = Infinity;
   let baseHi = -Infinity;
   for (let k = 0; k < n; k++) {
-    const x = d.gx[k];
-    const y = d.gy[k];
-    const i = Math.min(Math.floor(x), nAge - 2);
-    const j = Math.min(Math.floor(y), nLam - 2);
-    cell[k] = i * nLam + j;
-    ageIndex[k] = i;
-    tx[k] = x - i;
-    ty[k] = y - j;
+    const i = ageIndex[k];
+    const j = cell[k] - i * nLam;
     if (i < aLo) aLo = i;
     if (i > aHi) aHi = i;
     if (j < jLo) jLo = j;
@@ -220,7 +225,11 @@ function cellWeights(d: SharedDraws, tab: MassToLightTable): CellWeights {
     if (b > baseHi) baseHi = b;
   }
   const [ceilLo, ceilHi] = rangeOf(d.logCeil, n);
-  Object.assign(cellBuf.ranges, { aLo, aHi, jLo, jHi, baseLo, baseHi, ceilLo, ceilHi });
+  const small = n < WINDOW_MEDIAN_MIN_VALUES;
+  const [cvLo, cvHi] = small ? rangeOf(d.logCeilCv, n) : [-Infinity, Infinity];
+  const [accLo, accHi] = small && d.logAccretedBaryons ? rangeOf(d.logAccretedBaryons, n) : [-Infinity, Infinity];
+  Object.assign(cellBuf.ranges, { aLo, aHi, jLo, jHi, baseLo, baseHi, ceilLo, ceilHi, cvLo, cvHi, accLo, accHi });
+  cellBuf.cells = cells;
   cellFor = { d, nAge, nLam };
   return cellBuf;
 }
@@ -239,20 +248,25 @@ function rangeOf(a: Float64Array, n: number): [number, number] {
 /**
  * Bounds of the M/L table's term over the cells the draws use: log10 M⋆ − base = surv − lnu is a
  * convex combination of the four corners of each draw's cell (the bilinear rule), so it lies within
- * the corners' range over those cells.
+ * the corners' range over those cells; likewise log10 (1 − R) = surv within its nodes' range.
  */
-function tableBounds(tab: MassToLightTable, r: CellWeights['ranges']): { dLo: number; dHi: number } {
+function tableBounds(tab: MassToLightTable, r: CellWeights['ranges']): { dLo: number; dHi: number; sLo: number; sHi: number } {
   let dLo = Infinity;
   let dHi = -Infinity;
+  let sLo = Infinity;
+  let sHi = -Infinity;
   for (let i = r.aLo; i <= r.aHi + 1; i++) {
+    const sv = tab.logSurv[i];
+    if (sv < sLo) sLo = sv;
+    if (sv > sHi) sHi = sv;
     for (let j = r.jLo; j <= r.jHi + 1; j++) {
       const l = tab.logLnu[i * tab.nLam + j];
-      const dv = tab.logSurv[i] - l;
+      const dv = sv - l;
       if (dv < dLo) dLo = dv;
       if (dv > dHi) dHi = dv;
     }
   }
-  return { dLo, dHi };
+  return { dLo, dHi, sLo, sHi };
 }
 
 /** Puts value v (index i) into its bucket (quantile-buckets.ts: monotone in v, NaN in bucket 0). */
@@ -264,9 +278,25 @@ function bucket(bk: Buckets, i: number, v: number): void {
   bk.counts[b]++;
 }
 
-/** The buckets of log10 M⋆ and log10 ε_req in imfStatistics (the single medians take windowMedian), reused from call to call. */
+/**
+ * The buckets of imfStatistics, reused from call to call: log10 M⋆ and log10 ε_req, and below
+ * WINDOW_MEDIAN_MIN_VALUES draws those of the single medians (log10 ε_req against the ceiling with
+ * cosmic variance, the time budget's ratio and formed mass); from there up windowMedian takes them.
+ */
 const bkM = makeBuckets();
 const bkE = makeBuckets();
+const bkCv = makeBuckets();
+const bkR = makeBuckets();
+const bkF = makeBuckets();
+
+/** The quantiles reported of log10 M⋆ and of log10 ε_req (p16/p50/p84 and p05/p50/p95). */
+const LM_QS = [0.16, 0.5, 0.84] as const;
+const LE_QS = [0.05, 0.5, 0.95] as const;
+/** The quantiles of one of the two vectors taken in one pass: its reported ones, then the ranks of its median's error (draw-rule.ts). */
+function statQuantiles(reported: readonly number[], n: number): number[] {
+  const [qa, , qb] = medianErrorQuantiles(n);
+  return [...reported, qa, qb];
+}
 
 /** Local slope α of dn/dlnM ∝ M^−α at M (centred difference over ±0.041 dex). */
 function localSlope(halo: HaloModel, m: number, z: number): number {
@@ -286,7 +316,8 @@ function localSlope(halo: HaloModel, m: number, z: number): number {
 export function imfStatistics(tab: MassToLightTable, d: SharedDraws, ed: EddingtonInputs, wantFormedMedian: boolean, look?: LookState): ImfStatistics {
   const nv = d.n;
   const [lmOwn, lepsOwn, lepsCv, lr, lf] = scratchVectors(nv);
-  if (look) extendLook(tab, d.base, d.gx, d.gy, d.logCeil, nv, look);
+  const w = cellWeights(d, tab);
+  if (look) extendLook(tab, w.cells, d.base, d.logCeil, nv, look);
   const lm = look ? look.lm : lmOwn;
   const leps = look ? look.le : lepsOwn;
   const acc = d.logAccretedBaryons;
@@ -297,21 +328,26 @@ export function imfStatistics(tab: MassToLightTable, d: SharedDraws, ed: Eddingt
   let strained = 0;
   let tbOver = 0;
   const lRef = Math.log10(ed.epsRef);
-  const w = cellWeights(d, tab);
   const L = tab.logLnu;
   const S = tab.logSurv;
   const nLam = tab.nLam;
-  const { cell, ageIndex, tx: txs, ty: tys } = w;
+  const { cell, ageIndex, tx: txs, ty: tys } = w.cells;
   // log10 M⋆'s and log10 ε_req's bucket counts are made in this loop (quantile-buckets.ts), over bounds known before it:
   // the look's own ranges, or the M/L table's corners over the draws' cells plus the shared vectors' ranges.
   const r = w.ranges;
   const t = tableBounds(tab, r);
-  // The look's last buckets, when it was taken over all these draws, are read again as they are.
-  const kept = look !== undefined && look.bucketsOf === nv;
+  // The look's last quantiles, when it was taken over all these draws, are these draws' own.
+  const kept = look !== undefined && look.quantilesOf === nv;
   const vLo = look ? look.range.lmMin : r.baseLo + t.dLo;
   const vHi = look ? look.range.lmMax : r.baseHi + t.dHi;
   const useM = !kept && layoutBuckets(bkM, nv, vLo, vHi);
   const useE = !kept && layoutBuckets(bkE, nv, look ? look.range.leMin : vLo - r.ceilHi, look ? look.range.leMax : vHi - r.ceilLo);
+  // the single medians' vectors, bucketed here where windowMedian would bucket them on its own (bounds
+  // from those above; not laid out where the accreted baryons reach −Infinity: the ratio is then +Infinity)
+  const small = nv < WINDOW_MEDIAN_MIN_VALUES;
+  const useCv = small && layoutBuckets(bkCv, nv, vLo - r.cvHi, vHi - r.cvLo);
+  const useR = small && lratio !== undefined && layoutBuckets(bkR, nv, vLo - t.sHi - r.accHi, vHi - t.sLo - r.accLo);
+  const useF = small && lformed !== undefined && layoutBuckets(bkF, nv, vLo - t.sHi, vHi - t.sLo);
   const base = d.base;
   const logCeil = d.logCeil;
   const logCeilCv = d.logCeilCv;
@@ -324,7 +360,7 @@ export function imfStatistics(tab: MassToLightTable, d: SharedDraws, ed: Eddingt
     let v: number;
     let e: number;
     if (own) {
-      // the table's own bilinear rule (MassToLightTable.logMassToLightAt), term for term, at the shared cell
+      // the table's own bilinear rule (logMassToLightInCell, term for term; surv is wanted on its own below)
       const c = cell[i];
       const ty = tys[i];
       const lnu = (1 - tx) * ((1 - ty) * L[c] + ty * L[c + 1]) + tx * ((1 - ty) * L[c + nLam] + ty * L[c + nLam + 1]);
@@ -340,6 +376,7 @@ export function imfStatistics(tab: MassToLightTable, d: SharedDraws, ed: Eddingt
     if (useE) bucket(bkE, i, e);
     const ecv = v - logCeilCv[i];
     lepsCv[i] = ecv;
+    if (useCv) bucket(bkCv, i, ecv);
     // counted without branches: near a threshold which side a draw falls cannot be predicted
     over += +(e > 0);
     overCosmo += +(e > cosmo[i]);
@@ -349,24 +386,27 @@ export function imfStatistics(tab: MassToLightTable, d: SharedDraws, ed: Eddingt
       const f = v - surv;
       const rr = f - acc[i];
       lratio![i] = rr;
+      if (useR) bucket(bkR, i, rr);
       if (lformed) lformed[i] = f;
+      if (useF) bucket(bkF, i, f);
       tbOver += +(rr > 0);
     }
   }
   /** The quantiles of a vector from the counts of this loop, or bucketed on its own where they could not be laid out. */
   const quantiles = (x: Float64Array, qs: readonly number[], bk: Buckets, made: boolean): number[] => (made ? quantilesFromBuckets(x, nv, qs, bk) : bucketQuantiles(x, nv, qs));
-  const [qa, , qb] = medianErrorQuantiles(nv);
-  const [lm16, lmMed, lm84, lmA, lmB] = kept ? quantilesFromBuckets(lm, nv, [0.16, 0.5, 0.84, qa, qb], look.bkLm) : quantiles(lm, [0.16, 0.5, 0.84, qa, qb], bkM, useM);
-  const [le05, leMed, le95, leA, leB] = kept ? quantilesFromBuckets(leps, nv, [0.05, 0.5, 0.95, qa, qb], look.bkLe) : quantiles(leps, [0.05, 0.5, 0.95, qa, qb], bkE, useE);
+  /** A single median from this loop's buckets, or by windowMedian. */
+  const median = (x: Float64Array, bk: Buckets, made: boolean): number => (made ? quantilesFromBuckets(x, nv, [0.5], bk)[0] : windowMedian(x, nv));
+  const [lm16, lmMed, lm84, lmA, lmB] = kept ? look.lmQuantiles : quantiles(lm, statQuantiles(LM_QS, nv), bkM, useM);
+  const [le05, leMed, le95, leA, leB] = kept ? look.leQuantiles : quantiles(leps, statQuantiles(LE_QS, nv), bkE, useE);
   const leErr = 0.5 * (leB - leA);
   const med = 10 ** leMed;
-  const medCv = 10 ** windowMedian(lepsCv, nv);
+  const medCv = 10 ** median(lepsCv, bkCv, useCv);
   const epsHost = Math.min(1, Math.max(med, ed.epsRef));
   const shift = eddingtonPosterior(hostPrior(ed, epsHost), lmMed, ed.sigmaDex).shiftMedianDex;
   const mHost = Math.min(Math.max(10 ** lmMed / (ed.halo.baryonFraction * epsHost), 1e3), 1e18);
   const alpha = localSlope(ed.halo, mHost, ed.z);
   const debiased = med * 10 ** -shift;
-  const ratioMed = lratio ? 10 ** windowMedian(lratio, nv) : undefined;
+  const ratioMed = lratio ? 10 ** median(lratio, bkR, useR) : undefined;
   const result: ImfResult = {
     verdict: verdictFor(med, ed.epsRef),
     log_mstar_median: lmMed,
@@ -392,7 +432,7 @@ export function imfStatistics(tab: MassToLightTable, d: SharedDraws, ed: Eddingt
     result,
     eddingtonSlopeAlpha: alpha,
     eddingtonFirstOrderDex: eddingtonFirstOrderShiftDex(alpha, ed.sigmaDex),
-    formedMassMedianMsun: lformed ? 10 ** windowMedian(lformed, nv) : undefined,
+    formedMassMedianMsun: lformed ? 10 ** median(lformed, bkF, useF) : undefined,
   };
 }
 
@@ -401,44 +441,59 @@ export interface LookState {
   n: number;
   readonly lm: Float64Array;
   readonly le: Float64Array;
-  /** The buckets of lm and le at the last look, and the number of draws they hold (−1: none). */
+  /** The buckets of lm and le (reused from look to look). */
   readonly bkLm: Buckets;
   readonly bkLe: Buckets;
-  bucketsOf: number;
+  /**
+   * The last look's quantiles of lm and le, in imfStatistics' order (statQuantiles), and the number of
+   * draws they are of (−1: none): imfStatistics takes them as they are when the draws stop there.
+   */
+  lmQuantiles: number[];
+  leQuantiles: number[];
+  quantilesOf: number;
   range: { lmMin: number; lmMax: number; leMin: number; leMax: number };
 }
 
 /** @param buckets two Buckets (makeBuckets) for lm and le, reusable from galaxy to galaxy; fresh ones when absent. */
 export function makeLookState(lm: Float64Array, le: Float64Array, buckets?: readonly [Buckets, Buckets]): LookState {
   const [bkLm, bkLe] = buckets ?? [makeBuckets(), makeBuckets()];
-  return { n: 0, lm, le, bkLm, bkLe, bucketsOf: -1, range: { lmMin: Infinity, lmMax: -Infinity, leMin: Infinity, leMax: -Infinity } };
+  return { n: 0, lm, le, bkLm, bkLe, lmQuantiles: [], leQuantiles: [], quantilesOf: -1, range: { lmMin: Infinity, lmMax: -Infinity, leMin: Infinity, leMax: -Infinity } };
 }
 
 /**
  * The adaptive rule's look at one IMF (draw-rule.ts): log10 M⋆ and log10 ε_req of the valid draws,
  * extended from look.n to n (the earlier draws are already there), then the two medians and their
- * Monte Carlo errors over all n.
+ * Monte Carlo errors over all n. The reported quantiles are taken in the same pass (a few more order
+ * statistics from the same gathered buckets) and kept, for imfStatistics when the draws stop here.
  */
-export function medianLook(tab: MassToLightTable, base: Float64Array, gx: Float64Array, gy: Float64Array, logCeil: Float64Array, n: number, look: LookState): { logMstarErrDex: number; logEpsMedian: number; logEpsErrDex: number } {
-  extendLook(tab, base, gx, gy, logCeil, n, look);
+export function medianLook(tab: MassToLightTable, cells: GridCells, base: Float64Array, logCeil: Float64Array, n: number, look: LookState): { logMstarErrDex: number; logEpsMedian: number; logEpsErrDex: number } {
+  extendLook(tab, cells, base, logCeil, n, look);
   const { lm, le, range: r } = look;
-  const qs = medianErrorQuantiles(n);
-  // the buckets are kept (imfStatistics reads them again when the draws stop here)
   const okM = layoutBuckets(look.bkLm, n, r.lmMin, r.lmMax);
   const okE = layoutBuckets(look.bkLe, n, r.leMin, r.leMax);
   if (okM) fillBuckets(lm, n, look.bkLm);
   if (okE) fillBuckets(le, n, look.bkLe);
-  look.bucketsOf = okM && okE ? n : -1;
-  const [ma, , mb] = okM ? quantilesFromBuckets(lm, n, qs, look.bkLm) : bucketQuantiles(lm, n, qs, { min: r.lmMin, max: r.lmMax });
-  const [ea, em, eb] = okE ? quantilesFromBuckets(le, n, qs, look.bkLe) : bucketQuantiles(le, n, qs, { min: r.leMin, max: r.leMax });
-  return { logMstarErrDex: 0.5 * (mb - ma), logEpsMedian: em, logEpsErrDex: 0.5 * (eb - ea) };
+  const qm = statQuantiles(LM_QS, n);
+  const qe = statQuantiles(LE_QS, n);
+  const mq = okM ? quantilesFromBuckets(lm, n, qm, look.bkLm) : bucketQuantiles(lm, n, qm, { min: r.lmMin, max: r.lmMax });
+  const eq = okE ? quantilesFromBuckets(le, n, qe, look.bkLe) : bucketQuantiles(le, n, qe, { min: r.leMin, max: r.leMax });
+  look.lmQuantiles = mq;
+  look.leQuantiles = eq;
+  look.quantilesOf = n;
+  // statQuantiles' order: the reported three (the median second), then the median error's two ranks
+  return { logMstarErrDex: 0.5 * (mq[4] - mq[3]), logEpsMedian: eq[1], logEpsErrDex: 0.5 * (eq[4] - eq[3]) };
 }
 
-/** A look's vectors extended from look.n to n valid draws (logMassToLightAt: the same numbers as imfStatistics' own rule), with their ranges. */
-function extendLook(tab: MassToLightTable, base: Float64Array, gx: Float64Array, gy: Float64Array, logCeil: Float64Array, n: number, look: LookState): void {
+/** A look's vectors extended from look.n to n valid draws (logMassToLightInCell: the same numbers as imfStatistics' own rule), with their ranges. */
+function extendLook(tab: MassToLightTable, cells: GridCells, base: Float64Array, logCeil: Float64Array, n: number, look: LookState): void {
+  if (cells.nAge !== tab.nAge || cells.nLam !== tab.nLam) throw new RangeError(`M/L table of ${tab.nAge} × ${tab.nLam} nodes read on cells of a ${cells.nAge} × ${cells.nLam} grid`);
   const { lm, le, range: r } = look;
+  const { cell, ageIndex, tx, ty } = cells;
+  const L = tab.logLnu;
+  const S = tab.logSurv;
+  const nLam = tab.nLam;
   for (let i = look.n; i < n; i++) {
-    const v = base[i] + tab.logMassToLightAt(gx[i], gy[i]);
+    const v = base[i] + logMassToLightInCell(L, S, nLam, ageIndex[i], cell[i], tx[i], ty[i]);
     const e = v - logCeil[i];
     lm[i] = v;
     le[i] = e;

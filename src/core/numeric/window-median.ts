@@ -7,6 +7,8 @@ const PILOT = 1024;
 const PILOT_Z = 3.5;
 /** Below this many values the pilot is too large a share: bucketQuantiles does it all. */
 const MIN_VALUES = 4 * PILOT;
+/** The fewest values windowMedian takes its window for (below, it buckets the vector: a caller that buckets on its own may as well). */
+export const WINDOW_MEDIAN_MIN_VALUES = MIN_VALUES;
 
 const pilot = new Float64Array(PILOT);
 let inside = new Float64Array(0);

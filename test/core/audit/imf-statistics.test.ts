@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import { fillGridCells, type GridCells } from '../../../src/core/audit/grid-cells.js';
 import { imfStatistics, makeLookState, medianLook, type SharedDraws } from '../../../src/core/audit/imf-statistics.js';
 import { eddingtonPosterior } from '../../../src/core/audit/eddington.js';
 import { logSurvivingAt } from '../../../src/core/audit/time-budget.js';
@@ -77,18 +78,34 @@ describe('imfStatistics: the shared-cell M/L rule, bucket quantiles and tabulate
       expect(r.eddington_shift_dex).toBeGreaterThan(0);
     });
   }
-  it("with the adaptive rule's look vectors (medianLook at 2000 of the 3000 draws, then extended; or at all 3000, its buckets kept) the statistics are the same, bit for bit", () => {
+  it('time budget with empty star-formation intervals (accreted baryons −∞, the ratio +∞): the ratio median and its share over 1 as defined', () => {
+    // below the window median's reach (3000 draws) the ratio is bucketed in the statistics' own loop unless a bound is infinite
+    const tab = cache.table('chabrier', 9, sfh);
+    const acc = Float64Array.from(d.logAccretedBaryons!, (v, i) => (i % 3 === 0 ? Number.NEGATIVE_INFINITY : v));
+    const r = imfStatistics(tab, { ...d, logAccretedBaryons: acc }, { halo, z: 9.0137, sigmaDex: 0.1, epsRef: 0.3 }, true).result;
+    const ratio = (i: number): number => d.base[i] + tab.logMassToLightAt(d.gx[i], d.gy[i]) - logSurvivingAt(tab, d.gx[i]) - acc[i];
+    expect(r.time_budget_ratio_median).toBe(10 ** quantileSorted(sorted(ratio), 0.5));
+    let over = 0;
+    for (let i = 0; i < n; i++) over += +(ratio(i) > 0);
+    expect(r.p_time_budget_over).toBe(over / n);
+  });
+  it("with the adaptive rule's look vectors (medianLook at 2000 of the 3000 draws, then extended; or at all 3000, its quantiles kept) the statistics are the same, bit for bit", () => {
     const tab = cache.table('kroupa', 9, sfh);
     const ed = { halo, z: 9.0137, sigmaDex: 0.1, epsRef: 0.3 };
+    const cells: GridCells = { nAge: tab.nAge, nLam: tab.nLam, cell: new Int32Array(n), ageIndex: new Int32Array(n), tx: new Float64Array(n), ty: new Float64Array(n) };
+    fillGridCells(d.gx, d.gy, 0, n, cells);
     const look = makeLookState(new Float64Array(n), new Float64Array(n));
-    medianLook(tab, d.base, d.gx, d.gy, d.logCeil, 2000, look);
+    medianLook(tab, cells, d.base, d.logCeil, 2000, look);
     const withLook = imfStatistics(tab, d, ed, true, look);
     expect(look.n).toBe(n);
     expect(withLook).toEqual(imfStatistics(tab, d, ed, true));
-    // a look over all the draws: its buckets are read again as they are
+    // a look over all the draws: its quantiles are taken as they are
     const full = makeLookState(new Float64Array(n), new Float64Array(n));
-    medianLook(tab, d.base, d.gx, d.gy, d.logCeil, n, full);
-    expect(full.bucketsOf).toBe(n);
+    medianLook(tab, cells, d.base, d.logCeil, n, full);
+    expect(full.quantilesOf).toBe(n);
     expect(imfStatistics(tab, d, ed, true, full)).toEqual(imfStatistics(tab, d, ed, true));
+    // the draws' own cells (made with the draws) give the same statistics as the cells found here
+    expect(imfStatistics(tab, { ...d, cells }, ed, true, full)).toEqual(imfStatistics(tab, d, ed, true));
+    expect(imfStatistics(tab, { ...d, cells }, ed, true)).toEqual(imfStatistics(tab, d, ed, true));
   });
 });
