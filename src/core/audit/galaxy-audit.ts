@@ -14,7 +14,7 @@ import { DRAW_BLOCK, drawPrecisionOf, FIRST_LOOK, looksFor, normalQuantile, P_CL
 import { fillGridCells, type GridCells } from './grid-cells.js';
 import { imfStatistics, makeLookState, medianLook, type ImfResult, type ImfStatistics, type SharedDraws } from './imf-statistics.js';
 import { rescaleBase, rescalePosition } from './imf-rescale.js';
-import { idSeed, makeRandom } from './random.js';
+import { DEVIATE_NORMAL, idSeed, makeRandom } from './random.js';
 import type { GalaxyInput } from './sample.js';
 import { reconcileGalaxy, type Reconciliation } from './reconcile.js';
 import { logAccretedBaryonsOfDraws } from './time-budget.js';
@@ -147,6 +147,9 @@ function fillGrid(g: GalaxyInput, d: GalaxyDraws, valid: ArrayLike<number>, from
   }
 }
 
+/** The one kind of deviate of the ceiling offsets' stream. */
+const OFFSET_KINDS = Uint8Array.of(DEVIATE_NORMAL);
+
 /**
  * Each draw's offset of the ceiling's log10 mass from the cosmological parameters, N(0, sd²) dex, from
  * a stream of its own (seeded from the galaxy's stream seed with a fixed tag), so that the other draws
@@ -155,7 +158,8 @@ function fillGrid(g: GalaxyInput, d: GalaxyDraws, valid: ArrayLike<number>, from
 function ceilingOffsets(seed: number, id: string, n: number, sdDex: number, scratch: Scratch): Float64Array {
   const rnd = makeRandom(idSeed(seed, id) ^ 0x6a09e667);
   const out = scratch.f64('ceiling.offset', n);
-  for (let i = 0; i < n; i++) out[i] = sdDex * rnd.normal();
+  rnd.fill(OFFSET_KINDS, [out], n);
+  for (let i = 0; i < n; i++) out[i] *= sdDex;
   return out;
 }
 

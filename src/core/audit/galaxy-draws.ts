@@ -5,7 +5,7 @@ import { ML_AGE_MIN_MYR } from '../stars/mass-to-light.js';
 import { MUV_REST_UM } from '../stars/mass-estimate.js';
 import { apparentFromAbsolute, log10LnuFromApparent, MODEL_LAMBDA_MAX_UM } from '../stars/photometry.js';
 import type { Scratch } from '../numeric/scratch.js';
-import { makeRandom } from './random.js';
+import { DEVIATE_NORMAL, DEVIATE_UNIFORM, makeRandom } from './random.js';
 import type { GalaxyInput } from './sample.js';
 
 /**
@@ -166,19 +166,29 @@ export function galaxyDrawStream(g: GalaxyInput, capacity: number, seed: number,
   const tn = tAge.length;
   const tx1 = bg.x1;
   const draws = { n: 0, z, lnOnePlusZ: lnZ1, lnAgeGyr: lnT, log10AgeMyr: lAge, log10LambdaRestUm: lLam, log10Lnu: lL, log10MassRef: lM, excluded: 0 };
-  /** The deviates of draws k0 … k0 + m − 1 into the block buffers, in the stream's order per draw. */
+  // Only the deviates this row needs are drawn, always in the same order per draw (alternative,
+  // redshift, age, magnitude, β, mass), so the main run and the fixed-redshift checks of one galaxy share
+  // their random numbers (common random numbers); the others keep a constant.
+  const kinds: number[] = [];
+  const outs: Float64Array[] = [];
+  const unused: [Float64Array, number][] = [];
+  const want = (need: boolean, kind: number, buf: Float64Array, otherwise: number): void => {
+    if (need) {
+      kinds.push(kind);
+      outs.push(buf);
+    } else unused.push([buf, otherwise]);
+  };
+  want(needAlt, DEVIATE_UNIFORM, devAlt, 1);
+  want(needZ, DEVIATE_NORMAL, devZ, 0);
+  want(true, DEVIATE_UNIFORM, devAge, 0);
+  want(needMag, DEVIATE_NORMAL, devMag, 0);
+  want(needBeta, DEVIATE_NORMAL, devBeta, 0);
+  want(needMass, DEVIATE_NORMAL, devMass, 0);
+  const kindCodes = Uint8Array.from(kinds);
+  /** The deviates of the next m draws into the block buffers (shared by every stream: filled anew for each block). */
   const deviates = (m: number): void => {
-    // Only the deviates this row needs are drawn, always in the same order, so the main run and the
-    // fixed-redshift checks of one galaxy share their random numbers (common random numbers). A loop of
-    // its own, so that the generator is inlined into it.
-    for (let b = 0; b < m; b++) {
-      devAlt[b] = needAlt ? rnd.uniform() : 1;
-      devZ[b] = needZ ? rnd.normal() : 0;
-      devAge[b] = rnd.uniform();
-      devMag[b] = needMag ? rnd.normal() : 0;
-      devBeta[b] = needBeta ? rnd.normal() : 0;
-      devMass[b] = needMass ? rnd.normal() : 0;
-    }
+    rnd.fill(kindCodes, outs, m);
+    for (const [buf, v] of unused) buf.fill(v, 0, m);
   };
   const extend = (n: number): void => {
     if (n > capacity) throw new RangeError(`draws: ${n} asked for, room for ${capacity}`);

@@ -2,7 +2,17 @@
 export interface RandomStream {
   uniform(): number;
   normal(): number;
+  /**
+   * For each of m draws in turn, one deviate of each kind in `kinds` (DEVIATE_UNIFORM or
+   * DEVIATE_NORMAL), into outs[s][b] for kind s of draw b: the same numbers in the same order as the
+   * calls uniform() and normal() one by one, with the generator's state held in locals over the block.
+   */
+  fill(kinds: Uint8Array, outs: readonly Float64Array[], m: number): void;
 }
+
+/** The kinds of deviate RandomStream.fill makes. */
+export const DEVIATE_UNIFORM = 0;
+export const DEVIATE_NORMAL = 1;
 
 /**
  * The seed of one galaxy's random stream, from the run seed and the galaxy's own id, so a row's
@@ -68,6 +78,59 @@ class Xoroshiro128Plus implements RandomStream {
     const b = this.next() & 0x7ffffff;
     return a * 1.4901161193847656e-8 + b * 1.1102230246251565e-16;
   }
+  fill(kinds: Uint8Array, outs: readonly Float64Array[], m: number): void {
+    const ns = kinds.length;
+    let s00 = this.s00;
+    let s01 = this.s01;
+    let s10 = this.s10;
+    let s11 = this.s11;
+    for (let b = 0; b < m; b++) {
+      for (let s = 0; s < ns; s++) {
+        // both kinds start with two outputs of next(), written out (the same steps)
+        const o1 = (s00 + s10) | 0;
+        let a0 = s10 ^ s00;
+        let a1 = s11 ^ s01;
+        let t00 = (s00 << 24) ^ (s01 >>> 8) ^ a0 ^ (a0 << 16);
+        s01 = (s01 << 24) ^ (s00 >>> 8) ^ a1 ^ ((a1 << 16) | (a0 >>> 16));
+        s00 = t00;
+        s10 = (a1 << 5) ^ (a0 >>> 27);
+        s11 = (a0 << 5) ^ (a1 >>> 27);
+        const o2 = (s00 + s10) | 0;
+        a0 = s10 ^ s00;
+        a1 = s11 ^ s01;
+        t00 = (s00 << 24) ^ (s01 >>> 8) ^ a0 ^ (a0 << 16);
+        s01 = (s01 << 24) ^ (s00 >>> 8) ^ a1 ^ ((a1 << 16) | (a0 >>> 16));
+        s00 = t00;
+        s10 = (a1 << 5) ^ (a0 >>> 27);
+        s11 = (a0 << 5) ^ (a1 >>> 27);
+        let v: number;
+        if (kinds[s] === DEVIATE_UNIFORM) {
+          v = (o1 & 0x3ffffff) * 1.4901161193847656e-8 + (o2 & 0x7ffffff) * 1.1102230246251565e-16;
+        } else {
+          const iz = o2 >>> 25;
+          if (Math.abs(o1) < ZIG_K[iz]) v = o1 * ZIG_W[iz];
+          else {
+            // the rare wedge and tail (~1.2%) draw from the stream itself: its state is handed over and taken back
+            this.s00 = s00;
+            this.s01 = s01;
+            this.s10 = s10;
+            this.s11 = s11;
+            v = this.normalBeyond(o1, iz);
+            s00 = this.s00;
+            s01 = this.s01;
+            s10 = this.s10;
+            s11 = this.s11;
+          }
+        }
+        outs[s][b] = v;
+      }
+    }
+    this.s00 = s00;
+    this.s01 = s01;
+    this.s10 = s10;
+    this.s11 = s11;
+  }
+
   /**
    * Standard normal by the ziggurat of Marsaglia & Tsang (2000, J. Stat. Softw. 5(8), "The ziggurat
    * method for generating random variables"), 128 layers: one 32-bit output is the signed position,

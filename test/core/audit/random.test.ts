@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { uniformFloat64 } from 'pure-rand/distribution/uniformFloat64';
 import { xoroshiro128plus } from 'pure-rand/generator/xoroshiro128plus';
 import erf from '@stdlib/math-base-special-erf';
-import { makeRandom } from '../../../src/core/audit/random.js';
+import { DEVIATE_NORMAL, DEVIATE_UNIFORM, makeRandom } from '../../../src/core/audit/random.js';
 
 // The audit's generator is xoroshiro128+ written out; the reference is pure-rand's own
 // xoroshiro128plus + uniformFloat64 (a general-purpose npm library). The normals (a ziggurat) are
@@ -57,6 +57,36 @@ describe('normal deviates: the standard normal distribution', () => {
         const got = x.reduce((c, v) => c + (Math.abs(v) > t ? 1 : 0), 0);
         expect(Math.abs(got - want)).toBeLessThan(4 * Math.sqrt(want));
       }
+    });
+  }
+});
+
+describe('random stream: a block of deviates (fill) is the same numbers as the calls one by one', () => {
+  const U = DEVIATE_UNIFORM;
+  const N = DEVIATE_NORMAL;
+  for (const [seed, kinds] of [[3, [U, N, U, N, N, N]], [-11, [N, U, N]], [2147483647, [N]], [0, [U]]] as const) {
+    it(`seed ${seed}, kinds ${kinds.join('')}: 5 000 draws in blocks of 512 and a rest, then the stream goes on alike`, () => {
+      const one = makeRandom(seed);
+      const block = makeRandom(seed);
+      const m = 5000;
+      const outs = kinds.map(() => new Float64Array(m));
+      const codes = Uint8Array.from(kinds);
+      for (let b0 = 0; b0 < m; b0 += 512) {
+        const len = Math.min(512, m - b0);
+        block.fill(codes, outs.map((o) => o.subarray(b0, b0 + len)), len);
+      }
+      let beyond = 0;
+      for (let b = 0; b < m; b++) {
+        for (let s = 0; s < kinds.length; s++) {
+          const v = kinds[s] === U ? one.uniform() : one.normal();
+          expect(outs[s][b]).toBe(v);
+          // the ziggurat's wedge and tail (|v| beyond the base layer's edge is one sign of it) are among them
+          if (kinds[s] === N && Math.abs(v) > 3.442619855899) beyond++;
+        }
+      }
+      if (kinds.includes(N)) expect(beyond).toBeGreaterThan(0);
+      expect(block.uniform()).toBe(one.uniform());
+      expect(block.normal()).toBe(one.normal());
     });
   }
 });
