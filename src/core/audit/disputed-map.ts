@@ -4,6 +4,8 @@ import { resolveImf } from '../stars/imf-presets.js';
 import { MUV_REST_UM } from '../stars/mass-estimate.js';
 import { MODEL_LAMBDA_MAX_UM } from '../stars/photometry.js';
 import { fixedRedshiftCells, headlineAndCompared } from './galaxy-audit.js';
+import { galaxyDeviates } from './galaxy-draws.js';
+import { idSeed } from './random.js';
 import { slopeImfName, SLOPE_MAX, SLOPE_MIN } from './reconcile.js';
 import type { PreparedAudit } from './run-audit.js';
 
@@ -79,8 +81,10 @@ export function disputedMap(prep: PreparedAudit, index: number, nz = 24, draws =
   const tables = slope.map((a) => ctx.cache.table(slopeImfName(a), g.z, ctx.sfh));
   const lfb = Math.log10(ctx.halo.baryonFraction);
   const grid = slope.map(() => new Array<number>(nz).fill(0));
+  // the same draws at every redshift of the map: their deviates made once
+  const kept = galaxyDeviates(g, draws, idSeed(choices.seed, g.id));
   z.forEach((zi, i) => {
-    const cells = fixedRedshiftCells(ctx, g, zi, draws);
+    const cells = fixedRedshiftCells(ctx, g, zi, draws, kept);
     if (!cells) throw new RangeError(`row ${g.row}: the band leaves the model's rest range at z = ${zi.toFixed(2)}`);
     const lc = lfb + ceil.log10HaloMassAtQuantile(zi);
     const e = new Float64Array(cells.base.length);

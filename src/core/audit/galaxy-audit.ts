@@ -9,7 +9,7 @@ import { makeAccretionHistory } from './accretion.js';
 import { attribute, type AttributionDetail } from './attribution.js';
 import type { AuditChoices } from './choices.js';
 import type { CeilingTable } from './ceiling.js';
-import { drawGalaxy, galaxyDrawStream, tabulatedBackground, type GalaxyDraws } from './galaxy-draws.js';
+import { drawGalaxy, galaxyDeviates, galaxyDrawStream, tabulatedBackground, type GalaxyDraws } from './galaxy-draws.js';
 import { DRAW_BLOCK, drawPrecisionOf, FIRST_LOOK, looksFor, normalQuantile, P_CLASS_CHANGE_MAX } from './draw-rule.js';
 import { fillGridCells, type GridCells } from './grid-cells.js';
 import { imfStatistics, makeLookState, medianLook, type ImfResult, type ImfStatistics, type SharedDraws } from './imf-statistics.js';
@@ -163,16 +163,19 @@ function ceilingOffsets(seed: number, id: string, n: number, sdDex: number, scra
   return out;
 }
 
+/** A galaxy's first deviates, kept for its draws at fixed redshifts (galaxy-draws.ts). */
+type KeptDeviates = ReturnType<typeof galaxyDeviates>;
+
 /**
  * The galaxy's draws placed at one redshift z (the same band and flux, or the reported mass scaled by
  * D_L²(1+z)), as IMF-free bases and grid positions in the M/L tables; undefined when the band leaves
  * the model's rest range there. The galaxy's own random stream, so the figure and the reconciliation
  * agree.
  */
-export function fixedRedshiftCells(ctx: AuditContext, g: GalaxyInput, z: number, n: number): { base: Float64Array; gx: Float64Array; gy: Float64Array } | undefined {
+export function fixedRedshiftCells(ctx: AuditContext, g: GalaxyInput, z: number, n: number, kept?: KeptDeviates): { base: Float64Array; gx: Float64Array; gy: Float64Array } | undefined {
   const { headline } = headlineAndCompared(g, ctx.choices);
   const tableOf = (imf: string): MassToLightTable => ctx.cache.table(imf, g.z, ctx.sfh);
-  const df = drawGalaxy(g, n, idSeed(ctx.choices.seed, g.id), ctx.halo.background, { z, alt: false });
+  const df = drawGalaxy(g, n, idSeed(ctx.choices.seed, g.id), ctx.halo.background, { z, alt: false }, undefined, kept);
   const ok = validDraws(g, df);
   if (!ok.length) return undefined;
   const cell = drawGrid(g, df, ok, tableOf(headline), g.imfRef ? tableOf(g.imfRef) : undefined);
@@ -199,7 +202,7 @@ export function headlineAndCompared(g: GalaxyInput, choices: AuditChoices): { he
 }
 
 /** The fixed-redshift checks (alternative solution, lower bound) of the headline IMF, for the attribution. */
-function redshiftChecks(ctx: AuditContext, g: GalaxyInput, seed: number, headTab: MassToLightTable, refTab: MassToLightTable | undefined, notes: string[]): GalaxyAudit['redshift_checks'] {
+function redshiftChecks(ctx: AuditContext, g: GalaxyInput, seed: number, headTab: MassToLightTable, refTab: MassToLightTable | undefined, notes: string[], kept: () => KeptDeviates): GalaxyAudit['redshift_checks'] {
   const { choices, halo } = ctx;
   const ceil = ctx.ceilingFor(g.survey);
   const lfb = Math.log10(halo.baryonFraction);
@@ -208,7 +211,7 @@ function redshiftChecks(ctx: AuditContext, g: GalaxyInput, seed: number, headTab
   if (g.zLo !== undefined && g.zLo < g.z) fixed.push([Math.max(g.zLo, 0.05), 'z_lo', false]);
   const out: GalaxyAudit['redshift_checks'] = [];
   for (const [zf, kind, isAlt] of fixed) {
-    const df = drawGalaxy(g, Math.min(choices.draws, 2000), seed, halo.background, { z: zf, alt: isAlt });
+    const df = drawGalaxy(g, Math.min(choices.draws, 2000), seed, halo.background, { z: zf, alt: isAlt }, undefined, kept());
     const ok = validDraws(g, df);
     if (!ok.length) {
       notes.push(`at ${kind} = ${zf} the band falls outside the model's rest range; that solution was not evaluated`);
@@ -373,7 +376,10 @@ export function auditGalaxy(ctx: AuditContext, g: GalaxyInput, index: number, op
   imfs.forEach((imf, j) => (stats[imf] = imfStatistics(tableOf(imf), shared, ed, imf === headline, looks?.[j])));
   const imfResults: Record<string, ImfResult> = Object.fromEntries(imfs.map((i) => [i, stats[i].result]));
   const h = imfResults[headline];
-  const checks = h.verdict !== 'within budget' ? redshiftChecks(ctx, g, seed, tableOf(headline), refTable, notes) : [];
+  // the draws at fixed redshifts (checks, what it would take) share the galaxy's first deviates: made once
+  let kept: KeptDeviates | undefined;
+  const keptDeviates = (): KeptDeviates => (kept ??= galaxyDeviates(g, Math.min(choices.draws, 2000), seed));
+  const checks = h.verdict !== 'within budget' ? redshiftChecks(ctx, g, seed, tableOf(headline), refTable, notes, keptDeviates) : [];
   const { attribution, attribution_detail } = attribute({
     headlineImf: headline,
     headlineVerdict: h.verdict,
@@ -400,7 +406,7 @@ export function auditGalaxy(ctx: AuditContext, g: GalaxyInput, index: number, op
             gy,
             headTable: tableOf(headline),
             tableOf,
-            drawsAtRedshift: (zf) => fixedRedshiftCells(ctx, g, zf, Math.min(choices.draws, 2000)),
+            drawsAtRedshift: (zf) => fixedRedshiftCells(ctx, g, zf, Math.min(choices.draws, 2000), keptDeviates()),
           },
           [...new Set([1, choices.epsRef])],
         );

@@ -115,19 +115,65 @@ export interface GalaxyDrawStream {
 
 /** Draws whose deviates are made in one go before their arithmetic (galaxyDrawStream), and the buffers that hold them. */
 const DEVIATE_BLOCK = 512;
-const devAlt = new Float64Array(DEVIATE_BLOCK);
-const devZ = new Float64Array(DEVIATE_BLOCK);
-const devAge = new Float64Array(DEVIATE_BLOCK);
-const devMag = new Float64Array(DEVIATE_BLOCK);
-const devBeta = new Float64Array(DEVIATE_BLOCK);
-const devMass = new Float64Array(DEVIATE_BLOCK);
+
+/** One deviate of each kind per draw (entries 0 … m − 1 for m draws): a uniform for the alternative, normals for z, magnitude, β and mass, a uniform for the age. */
+export interface Deviates {
+  readonly alt: Float64Array;
+  readonly z: Float64Array;
+  readonly age: Float64Array;
+  readonly mag: Float64Array;
+  readonly beta: Float64Array;
+  readonly mass: Float64Array;
+}
+const deviateBlock = (n: number): Deviates => ({ alt: new Float64Array(n), z: new Float64Array(n), age: new Float64Array(n), mag: new Float64Array(n), beta: new Float64Array(n), mass: new Float64Array(n) });
+const block = deviateBlock(DEVIATE_BLOCK);
+
+/**
+ * A galaxy's deviates, draw after draw, from its one random stream: only those the row needs are drawn,
+ * always in the same order per draw (alternative, redshift, age, magnitude, β, mass), so the main run and
+ * the fixed-redshift checks of one galaxy share their random numbers (common random numbers); the others
+ * keep a constant (alternative 1, the rest 0). next(m, into) fills entries 0 … m − 1 of into with the next
+ * m draws' deviates.
+ */
+function deviateStream(g: GalaxyInput, seed: number): (m: number, into: Deviates) => void {
+  const rnd = makeRandom(seed);
+  const sLo = g.zLo !== undefined ? g.z - g.zLo : 0;
+  const sHi = g.zHi !== undefined ? g.zHi - g.z : 0;
+  const needAlt = g.zAlt !== undefined && g.pAlt > 0;
+  const slots: [boolean, number, keyof Deviates, number][] = [
+    [needAlt, DEVIATE_UNIFORM, 'alt', 1],
+    [sLo > 0 || sHi > 0 || needAlt, DEVIATE_NORMAL, 'z', 0],
+    [true, DEVIATE_UNIFORM, 'age', 0],
+    [g.log10Mstar === undefined && g.magErr > 0, DEVIATE_NORMAL, 'mag', 0],
+    [g.log10Mstar === undefined && g.beta !== undefined && g.betaErr > 0, DEVIATE_NORMAL, 'beta', 0],
+    [g.log10Mstar !== undefined && g.log10MstarErr > 0, DEVIATE_NORMAL, 'mass', 0],
+  ];
+  const drawn = slots.filter(([need]) => need);
+  const unused = slots.filter(([need]) => !need);
+  const kindCodes = Uint8Array.from(drawn, ([, kind]) => kind);
+  return (m, into) => {
+    rnd.fill(kindCodes, drawn.map(([, , key]) => into[key]), m);
+    for (const [, , key, v] of unused) into[key].fill(v, 0, m);
+  };
+}
+
+/**
+ * The deviates of a galaxy's first n draws, made once and kept: draws at fixed redshifts (drawGalaxy with
+ * a zOverride) read them instead of making them again, value for value the same (one stream, read in the
+ * same order).
+ */
+export function galaxyDeviates(g: GalaxyInput, n: number, seed: number): Deviates & { readonly n: number } {
+  const d = deviateBlock(n);
+  deviateStream(g, seed)(n, d);
+  return { ...d, n };
+}
 
 /**
  * @param scratch where the draws' arrays come from (reused between calls; valid until the next call
  *   with the same scratch); fresh arrays when absent.
  */
-export function drawGalaxy(g: GalaxyInput, n: number, seed: number, bgFull: Background, zOverride?: { z: number; alt: boolean }, scratch?: Scratch): GalaxyDraws {
-  const s = galaxyDrawStream(g, n, seed, bgFull, zOverride, scratch);
+export function drawGalaxy(g: GalaxyInput, n: number, seed: number, bgFull: Background, zOverride?: { z: number; alt: boolean }, scratch?: Scratch, kept?: Deviates & { readonly n: number }): GalaxyDraws {
+  const s = galaxyDrawStream(g, n, seed, bgFull, zOverride, scratch, kept);
   s.extend(n);
   return s.draws;
 }
@@ -137,9 +183,12 @@ export function drawGalaxy(g: GalaxyInput, n: number, seed: number, bgFull: Back
  * (one stream, the same deviates in the same order per draw), so a run that stops after m draws has
  * exactly the first m draws of a longer run.
  * @param capacity the most draws extend may reach.
+ * @param kept the galaxy's deviates made before (galaxyDeviates with the same seed, for at least
+ *   `capacity` draws): read instead of the stream, the same numbers.
  */
-export function galaxyDrawStream(g: GalaxyInput, capacity: number, seed: number, bgFull: Background, zOverride?: { z: number; alt: boolean }, scratch?: Scratch): GalaxyDrawStream {
-  const rnd = makeRandom(seed);
+export function galaxyDrawStream(g: GalaxyInput, capacity: number, seed: number, bgFull: Background, zOverride?: { z: number; alt: boolean }, scratch?: Scratch, kept?: Deviates & { readonly n: number }): GalaxyDrawStream {
+  if (kept && kept.n < capacity) throw new RangeError(`draws: ${capacity} asked for, ${kept.n} deviates kept`);
+  const next = kept ? undefined : deviateStream(g, seed);
   const bg = fastBackground(bgFull);
   const vec = (name: string): Float64Array => (scratch ? scratch.f64(name, capacity) : new Float64Array(capacity));
   const z = vec('draws.z');
@@ -156,52 +205,32 @@ export function galaxyDrawStream(g: GalaxyInput, capacity: number, seed: number,
   const mApp = g.mAB ?? (g.muv !== undefined ? apparentFromAbsolute(g.muv, bg.luminosityDistanceMpc(g.z), g.z) : Number.NaN);
   const dl0 = bg.luminosityDistanceMpc(g.z);
   const lObs = Math.log10(lambdaObs);
-  const needAlt = g.zAlt !== undefined && g.pAlt > 0;
-  const needZ = sLo > 0 || sHi > 0 || needAlt;
-  const needMag = g.log10Mstar === undefined && g.magErr > 0;
-  const needBeta = g.log10Mstar === undefined && g.beta !== undefined && g.betaErr > 0;
-  const needMass = g.log10Mstar !== undefined && g.log10MstarErr > 0;
   const l0 = Math.log10(ML_AGE_MIN_MYR);
   const { x0: tx0, h: th, lnAge: tAge, lnDl: tDl } = bg;
   const tn = tAge.length;
   const tx1 = bg.x1;
   const draws = { n: 0, z, lnOnePlusZ: lnZ1, lnAgeGyr: lnT, log10AgeMyr: lAge, log10LambdaRestUm: lLam, log10Lnu: lL, log10MassRef: lM, excluded: 0 };
-  // Only the deviates this row needs are drawn, always in the same order per draw (alternative,
-  // redshift, age, magnitude, β, mass), so the main run and the fixed-redshift checks of one galaxy share
-  // their random numbers (common random numbers); the others keep a constant.
-  const kinds: number[] = [];
-  const outs: Float64Array[] = [];
-  const unused: [Float64Array, number][] = [];
-  const want = (need: boolean, kind: number, buf: Float64Array, otherwise: number): void => {
-    if (need) {
-      kinds.push(kind);
-      outs.push(buf);
-    } else unused.push([buf, otherwise]);
+  /** The deviates of draws k … k + m − 1 into the block buffers: from the stream, or copied from those kept. */
+  const deviates = (k: number, m: number): void => {
+    if (next) next(m, block);
+    else for (const key of ['alt', 'z', 'age', 'mag', 'beta', 'mass'] as const) block[key].set(kept![key].subarray(k, k + m));
   };
-  want(needAlt, DEVIATE_UNIFORM, devAlt, 1);
-  want(needZ, DEVIATE_NORMAL, devZ, 0);
-  want(true, DEVIATE_UNIFORM, devAge, 0);
-  want(needMag, DEVIATE_NORMAL, devMag, 0);
-  want(needBeta, DEVIATE_NORMAL, devBeta, 0);
-  want(needMass, DEVIATE_NORMAL, devMass, 0);
-  const kindCodes = Uint8Array.from(kinds);
-  /** The deviates of the next m draws into the block buffers (shared by every stream: filled anew for each block). */
-  const deviates = (m: number): void => {
-    rnd.fill(kindCodes, outs, m);
-    for (const [buf, v] of unused) buf.fill(v, 0, m);
-  };
+  // at a fixed redshift, ln(1+z), ln t [Gyr] and ln D_L [Mpc] are the same for every draw: read once
+  const xFixed = zOverride ? Math.log1p(zOverride.z) : 0;
+  const ltFixed = zOverride ? bg.lnAgeAt(xFixed) : 0;
+  const lnDlFixed = zOverride ? bg.lnDlAt(xFixed) : 0;
   const extend = (n: number): void => {
     if (n > capacity) throw new RangeError(`draws: ${n} asked for, room for ${capacity}`);
     let excluded = 0;
     for (let k = draws.n; k < n; k++) {
       const b = (k - draws.n) % DEVIATE_BLOCK;
-      if (b === 0) deviates(Math.min(DEVIATE_BLOCK, n - k));
-      const uAlt = devAlt[b];
-      const gz = devZ[b];
-      const uAge = devAge[b];
-      const gMag = devMag[b];
-      const gBeta = devBeta[b];
-      const gMass = devMass[b];
+      if (b === 0) deviates(k, Math.min(DEVIATE_BLOCK, n - k));
+      const uAlt = block.alt[b];
+      const gz = block.z[b];
+      const uAge = block.age[b];
+      const gMag = block.mag[b];
+      const gBeta = block.beta[b];
+      const gMass = block.mass[b];
       let zk: number;
       let isAlt: boolean;
       if (zOverride) {
@@ -214,21 +243,24 @@ export function galaxyDrawStream(g: GalaxyInput, capacity: number, seed: number,
         zk = Math.max(zk, 0.05);
       }
       z[k] = zk;
-      const x = Math.log1p(zk);
-      lnZ1[k] = x;
-      // ln t and ln D_L at x from the two tables with one cell and weight (bg.lnAgeAt and bg.lnDlAt, the same numbers)
-      let lt: number;
-      let lnDl: number;
-      if (x >= tx0 && x <= tx1) {
-        const t = (x - tx0) / th;
-        const i = Math.min(Math.max(Math.floor(t), 0), tn - 2);
-        const u = t - i;
-        lt = tAge[i] + u * (tAge[i + 1] - tAge[i]);
-        lnDl = tDl[i] + u * (tDl[i + 1] - tDl[i]);
-      } else {
-        lt = bg.lnAgeAt(x);
-        lnDl = bg.lnDlAt(x);
+      let x = xFixed;
+      let lt = ltFixed;
+      let lnDl = lnDlFixed;
+      if (!zOverride) {
+        x = Math.log1p(zk);
+        // ln t and ln D_L at x from the two tables with one cell and weight (bg.lnAgeAt and bg.lnDlAt, the same numbers)
+        if (x >= tx0 && x <= tx1) {
+          const t = (x - tx0) / th;
+          const i = Math.min(Math.max(Math.floor(t), 0), tn - 2);
+          const u = t - i;
+          lt = tAge[i] + u * (tAge[i + 1] - tAge[i]);
+          lnDl = tDl[i] + u * (tDl[i + 1] - tDl[i]);
+        } else {
+          lt = bg.lnAgeAt(x);
+          lnDl = bg.lnDlAt(x);
+        }
       }
+      lnZ1[k] = x;
       lnT[k] = lt;
       const log10TMax = lt / Math.LN10 + 3; // Myr
       const la = l0 + uAge * (log10TMax - l0);

@@ -2,7 +2,7 @@ import { ARCMIN2_SR } from '../constants.js';
 import type { HaloModel } from '../halos/halo-model.js';
 import { gaussLegendre } from '../numeric/gauss-legendre.js';
 import { findRoot } from '../numeric/root-find.js';
-import { quantilesBySelection } from '../numeric/select.js';
+import { bucketQuantiles } from '../numeric/quantile-buckets.js';
 import type { MassToLightTable } from '../stars/mass-to-light.js';
 import type { CeilingTable } from './ceiling.js';
 import { FULL_SKY_ARCMIN2 } from './choice-specs.js';
@@ -64,7 +64,8 @@ export interface ReconcileInputs {
   drawsAtRedshift(z: number): { base: Float64Array; gx: Float64Array; gy: Float64Array } | undefined;
 }
 
-const median = (a: Float64Array): number => quantilesBySelection(Float64Array.from(a), [0.5])[0];
+/** The type-7 median of a (not reordered; bucketQuantiles: bit for bit quantilesBySelection). */
+const median = (a: Float64Array): number => bucketQuantiles(a, a.length, [0.5])[0];
 
 /** log10 of the median ε_req for masses lm against log10 ceilings (f_b M_q) given per draw. */
 function medianLogEps(lm: Float64Array, logCeil: (i: number) => number): number {
@@ -138,12 +139,12 @@ function slopeAxis(x: ReconcileInputs, lEps: number, logCeil: Float64Array): Sol
 
 /**
  * dn/dlnM (Mpc⁻³) with σ(M, z) scaled by s = σ8'/σ8: the halo model's own formula (Jenkins et al. 2001
- * convention, f(σ) ρ̄/M |dlnσ/dlnM|) with σ → s σ; σ(M) is exactly proportional to σ8.
+ * convention, f(σ) ρ̄/M |dlnσ/dlnM|) with σ → s σ; σ(M) is exactly proportional to σ8. Given σ(M, 0)
+ * (sigma0), dlnσ/dlnM (slope), the growth factor d and δ_c at z, read by the caller.
  */
-function dndlnMScaled(h: HaloModel, m: number, z: number, s: number): number {
-  const slope = h.table.dlnSigmaDlnM(m);
-  const sigma = s * h.table.sigma0(m) * h.growth.d(z);
-  return h.model.f({ sigma, deltaC: h.deltaC(z), z, nEff: -6 * slope - 3 }) * (h.table.rhoMMsunMpc3 / m) * Math.abs(slope);
+function dndlnMScaled(h: HaloModel, m: number, sigma0: number, slope: number, d: number, dc: number, z: number, s: number): number {
+  const sigma = s * sigma0 * d;
+  return h.model.f({ sigma, deltaC: dc, z, nEff: -6 * slope - 3 }) * (h.table.rhoMMsunMpc3 / m) * Math.abs(slope);
 }
 
 const GL_Z = gaussLegendre(8);
@@ -152,19 +153,27 @@ const GL_M = gaussLegendre(32);
 /**
  * Expected haloes above M in the slice around z with σ scaled by s: Ω ∫ dz dV/dz ∫_M dn/dlnM dlnM,
  * 8-point Gauss–Legendre in z over the slice and 32-point in ln M over [ln M, ln M + 12] (the
- * multiplicity falls as e^(−ν²/2) far faster than that for the rare haloes of a ceiling).
+ * multiplicity falls as e^(−ν²/2) far faster than that for the rare haloes of a ceiling). The mass
+ * nodes and σ(M) there are the same at every redshift node, and the growth factor and δ_c the same
+ * at every mass node: each is read once.
  */
 function sliceCount(x: ReconcileInputs, z: number, m: number, s: number): number {
   const [z0, z1] = x.ceiling.sliceLimits(z);
   const omega = x.areaArcmin2 * ARCMIN2_SR;
-  const lnTop = Math.min(Math.log(m) + 12, x.halo.table.log10MMax * Math.LN10 - 1e-9);
+  const h = x.halo;
+  const lnTop = Math.min(Math.log(m) + 12, h.table.log10MMax * Math.LN10 - 1e-9);
   const lnM = Math.log(m);
+  const ms = Array.from(GL_M.x, (t) => Math.exp(0.5 * (lnM + lnTop) + 0.5 * (lnTop - lnM) * t));
+  const sigma0 = ms.map((mk) => h.table.sigma0(mk));
+  const slope = ms.map((mk) => h.table.dlnSigmaDlnM(mk));
   let total = 0;
   for (let i = 0; i < GL_Z.x.length; i++) {
     const zi = 0.5 * (z0 + z1) + 0.5 * (z1 - z0) * GL_Z.x[i];
+    const d = h.growth.d(zi);
+    const dc = h.deltaC(zi);
     let n = 0;
-    for (let k = 0; k < GL_M.x.length; k++) n += GL_M.w[k] * dndlnMScaled(x.halo, Math.exp(0.5 * (lnM + lnTop) + 0.5 * (lnTop - lnM) * GL_M.x[k]), zi, s);
-    total += GL_Z.w[i] * x.halo.background.dVdzdOmegaMpc3(zi) * n * 0.5 * (lnTop - lnM);
+    for (let k = 0; k < ms.length; k++) n += GL_M.w[k] * dndlnMScaled(h, ms[k], sigma0[k], slope[k], d, dc, zi, s);
+    total += GL_Z.w[i] * h.background.dVdzdOmegaMpc3(zi) * n * 0.5 * (lnTop - lnM);
   }
   return omega * total * 0.5 * (z1 - z0);
 }
