@@ -132,13 +132,15 @@ function fillGrid(g: GalaxyInput, d: GalaxyDraws, valid: ArrayLike<number>, from
   const fl = (grid.nLam - 1) / (grid.log10LamMax - ll0);
   const xTop = grid.nAge - 1;
   const yTop = grid.nLam - 1;
+  // a reported mass is rescaled at one wavelength: its y is the same for every draw (rescalePosition's), x as below
+  const yRescale = g.log10Mstar !== undefined ? rescalePosition(grid, la0)[1] : 0;
   for (let i = from; i < to; i++) {
     const k = valid[i];
     if (g.log10Mstar !== undefined) {
-      const [a, b] = rescalePosition(grid, d.log10AgeMyr[k]);
+      const a = Math.min(Math.max((d.log10AgeMyr[k] - la0) * fa, 0), xTop);
       x[i] = a;
-      y[i] = b;
-      base[i] = rescaleBase(d.log10MassRef[k], ref!, a, b);
+      y[i] = yRescale;
+      base[i] = rescaleBase(d.log10MassRef[k], ref!, a, yRescale);
     } else {
       x[i] = Math.min(Math.max((d.log10AgeMyr[k] - la0) * fa, 0), xTop);
       y[i] = Math.min(Math.max((d.log10LambdaRestUm[k] - ll0) * fl, 0), yTop);

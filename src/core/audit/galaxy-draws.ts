@@ -204,6 +204,9 @@ export function galaxyDrawStream(g: GalaxyInput, capacity: number, seed: number,
   const lambdaObs = g.mAB !== undefined ? g.lambdaObsUm! : MUV_REST_UM * (1 + g.z);
   const mApp = g.mAB ?? (g.muv !== undefined ? apparentFromAbsolute(g.muv, bg.luminosityDistanceMpc(g.z), g.z) : Number.NaN);
   const dl0 = bg.luminosityDistanceMpc(g.z);
+  // a reported mass moved from z to zk scales as D_L² (1+z)⁻¹: ln D_L and ln(1+z) at the row's own z, once
+  const lnDl0 = Math.log(dl0);
+  const x0 = Math.log1p(g.z);
   const lObs = Math.log10(lambdaObs);
   const l0 = Math.log10(ML_AGE_MIN_MYR);
   const { x0: tx0, h: th, lnAge: tAge, lnDl: tDl } = bg;
@@ -268,7 +271,7 @@ export function galaxyDrawStream(g: GalaxyInput, capacity: number, seed: number,
       if (g.log10Mstar !== undefined) {
         let m = g.log10Mstar + gMass * g.log10MstarErr;
         if (isAlt && g.log10MstarAlt !== undefined) m = g.log10MstarAlt + gMass * g.log10MstarErr;
-        else if (zk !== g.z) m += (2 * (lnDl - Math.log(dl0)) - (x - Math.log1p(g.z))) / Math.LN10;
+        else if (zk !== g.z) m += (2 * (lnDl - lnDl0) - (x - x0)) / Math.LN10;
         lM[k] = m;
         lL[k] = Number.NaN;
         lLam[k] = Number.NaN;

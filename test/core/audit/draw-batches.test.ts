@@ -6,6 +6,7 @@ import { makeCeilingTable } from '../../../src/core/audit/ceiling.js';
 import { drawGalaxy, fastBackground, galaxyDeviates, tabulatedBackground } from '../../../src/core/audit/galaxy-draws.js';
 import { idSeed, makeRandom } from '../../../src/core/audit/random.js';
 import { fixedRedshiftCells } from '../../../src/core/audit/galaxy-audit.js';
+import { rescaleBase, rescalePosition } from '../../../src/core/audit/imf-rescale.js';
 import { prepareAudit, type AuditChoices } from '../../../src/core/audit/index.js';
 import { logAccretedBaryons, logAccretedBaryonsOfDraws } from '../../../src/core/audit/time-budget.js';
 
@@ -145,5 +146,28 @@ describe('draws at a fixed redshift: the terms read once per redshift are those 
     const placed = drawGalaxy(g, 2000, 77, bg, { z: g.z, alt: false });
     expect(own.z.every((z) => z === g.z)).toBe(true);
     expect(placed).toEqual(own);
+  });
+});
+
+describe("grid positions per batch, reported masses: the draws' cells equal rescalePosition and the base rescaleBase", () => {
+  it('a reported-mass row at a fixed redshift: x, y and base of every draw, bit for bit', () => {
+    const choices: AuditChoices = {
+      cosmology: PLANCK18, massFunction: 'sheth-tormen', transfer: { kind: 'eh98' }, deltaC: { kind: 'constant', value: 1.686 },
+      imfs: ['chabrier'], sfh: 'constant', metallicity: 0.02, epsRef: 0.3, quantile: 0.997,
+      draws: 2000, seed: 5, sliceDz: 1, formationZ: 30, survey: { name: 'grid', areaArcmin2: 40, zMin: 7, zMax: 11 }, surveys: [], zBins: [],
+    };
+    const prep = prepareAudit('id,z,z_lo,z_hi,log_mstar,log_mstar_err,imf_ref\nM-1,8.2,7.9,8.6,9.9,0.2,salpeter', choices);
+    const g = prep.parsed.rowAt(0).galaxy!;
+    const zf = 7.7;
+    const cells = fixedRedshiftCells(prep.ctx, g, zf, 2000)!;
+    const d = drawGalaxy(g, 2000, idSeed(choices.seed, g.id), prep.ctx.halo.background, { z: zf, alt: false });
+    const head = prep.ctx.cache.table('salpeter', g.z, prep.ctx.sfh);
+    expect(cells.gx.length).toBe(d.n);
+    for (let k = 0; k < d.n; k++) {
+      const [x, y] = rescalePosition(head, d.log10AgeMyr[k]);
+      expect(cells.gx[k]).toBe(x);
+      expect(cells.gy[k]).toBe(y);
+      expect(cells.base[k]).toBe(rescaleBase(d.log10MassRef[k], head, x, y));
+    }
   });
 });
