@@ -15,6 +15,24 @@ import { logAccretedBaryons, logAccretedBaryonsOfDraws } from '../../../src/core
 const bg = makeBackground(PLANCK18);
 const FB = 0.157424;
 
+/** Choices for the draw tests: only the IMFs, the draws, the seed and the field's redshifts differ. */
+function drawChoices(imfs: string[], draws: number, seed: number, zMin = 7, zMax = 11): AuditChoices {
+  return {
+    cosmology: PLANCK18, massFunction: 'sheth-tormen', transfer: { kind: 'eh98' }, deltaC: { kind: 'constant', value: 1.686 },
+    imfs, sfh: 'constant', metallicity: 0.02, epsRef: 0.3, quantile: 0.997,
+    draws, seed, sliceDz: 1, formationZ: 30, survey: { name: 'draws', areaArcmin2: 40, zMin, zMax }, surveys: [], zBins: [],
+  };
+}
+
+/** The first row of csv prepared with choices, its cells at the fixed redshift zf and its draws there. */
+function placedAt(csv: string, choices: AuditChoices, zf: number) {
+  const prep = prepareAudit(csv, choices);
+  const g = prep.parsed.rowAt(0).galaxy!;
+  const cells = fixedRedshiftCells(prep.ctx, g, zf, choices.draws)!;
+  const d = drawGalaxy(g, choices.draws, idSeed(choices.seed, g.id), prep.ctx.halo.background, { z: zf, alt: false });
+  return { prep, g, cells, d };
+}
+
 describe('time budget per draw: logAccretedBaryonsOfDraws equals logAccretedBaryons on the same tables', () => {
   const tab = tabulatedBackground(bg);
   const history = makeAccretionHistory(tab);
@@ -83,16 +101,7 @@ describe('ceiling lookups per batch: log10HaloMassesAt equals the per-point look
 
 describe("grid positions per batch: the draws' cells in the M/L tables equal the table's own gridPositionLog", () => {
   it('a brightness row at a fixed redshift: x and y of every valid draw, bit for bit', () => {
-    const choices: AuditChoices = {
-      cosmology: PLANCK18, massFunction: 'sheth-tormen', transfer: { kind: 'eh98' }, deltaC: { kind: 'constant', value: 1.686 },
-      imfs: ['salpeter'], sfh: 'constant', metallicity: 0.02, epsRef: 0.3, quantile: 0.997,
-      draws: 3000, seed: 4, sliceDz: 1, formationZ: 30, survey: { name: 'grid', areaArcmin2: 40, zMin: 7, zMax: 11 }, surveys: [], zBins: [],
-    };
-    const prep = prepareAudit('id,z,z_lo,z_hi,muv,mag_err,beta\nG-1,8.4,8.1,8.8,-20.3,0.1,-2.0', choices);
-    const g = prep.parsed.rowAt(0).galaxy!;
-    const zf = 8.1;
-    const cells = fixedRedshiftCells(prep.ctx, g, zf, 3000)!;
-    const d = drawGalaxy(g, 3000, idSeed(choices.seed, g.id), prep.ctx.halo.background, { z: zf, alt: false });
+    const { prep, g, cells, d } = placedAt('id,z,z_lo,z_hi,muv,mag_err,beta\nG-1,8.4,8.1,8.8,-20.3,0.1,-2.0', drawChoices(['salpeter'], 3000, 4), 8.1);
     const tab = prep.ctx.cache.table('salpeter', g.z, prep.ctx.sfh);
     let m = 0;
     for (let k = 0; k < d.n; k++) {
@@ -108,11 +117,7 @@ describe("grid positions per batch: the draws' cells in the M/L tables equal the
 });
 
 describe("draws at a fixed redshift from the galaxy's kept deviates: the same draws as from its stream", () => {
-  const choices: AuditChoices = {
-    cosmology: PLANCK18, massFunction: 'sheth-tormen', transfer: { kind: 'eh98' }, deltaC: { kind: 'constant', value: 1.686 },
-    imfs: ['salpeter'], sfh: 'constant', metallicity: 0.02, epsRef: 0.3, quantile: 0.997,
-    draws: 3000, seed: 9, sliceDz: 1, formationZ: 30, survey: { name: 'kept', areaArcmin2: 40, zMin: 3, zMax: 12 }, surveys: [], zBins: [],
-  };
+  const choices = drawChoices(['salpeter'], 3000, 9, 3, 12);
   const csv = [
     'id,z,z_lo,z_hi,z_alt,p_alt,muv,m_ab,lambda_obs_um,log_mstar,imf_ref,log_mstar_err,log_mstar_alt,mag_err,beta,beta_err',
     'K-light,8.4,8.1,8.8,3.2,0.2,-20.3,,,,,,,0.12,-2.1,0.3',
@@ -151,16 +156,7 @@ describe('draws at a fixed redshift: the terms read once per redshift are those 
 
 describe("grid positions per batch, reported masses: the draws' cells equal rescalePosition and the base rescaleBase", () => {
   it('a reported-mass row at a fixed redshift: x, y and base of every draw, bit for bit', () => {
-    const choices: AuditChoices = {
-      cosmology: PLANCK18, massFunction: 'sheth-tormen', transfer: { kind: 'eh98' }, deltaC: { kind: 'constant', value: 1.686 },
-      imfs: ['chabrier'], sfh: 'constant', metallicity: 0.02, epsRef: 0.3, quantile: 0.997,
-      draws: 2000, seed: 5, sliceDz: 1, formationZ: 30, survey: { name: 'grid', areaArcmin2: 40, zMin: 7, zMax: 11 }, surveys: [], zBins: [],
-    };
-    const prep = prepareAudit('id,z,z_lo,z_hi,log_mstar,log_mstar_err,imf_ref\nM-1,8.2,7.9,8.6,9.9,0.2,salpeter', choices);
-    const g = prep.parsed.rowAt(0).galaxy!;
-    const zf = 7.7;
-    const cells = fixedRedshiftCells(prep.ctx, g, zf, 2000)!;
-    const d = drawGalaxy(g, 2000, idSeed(choices.seed, g.id), prep.ctx.halo.background, { z: zf, alt: false });
+    const { prep, g, cells, d } = placedAt('id,z,z_lo,z_hi,log_mstar,log_mstar_err,imf_ref\nM-1,8.2,7.9,8.6,9.9,0.2,salpeter', drawChoices(['chabrier'], 2000, 5), 7.7);
     const head = prep.ctx.cache.table('salpeter', g.z, prep.ctx.sfh);
     expect(cells.gx.length).toBe(d.n);
     for (let k = 0; k < d.n; k++) {
