@@ -9,7 +9,7 @@ import { makeAccretionHistory } from './accretion.js';
 import { attribute, type AttributionDetail } from './attribution.js';
 import type { AuditChoices } from './choices.js';
 import type { CeilingTable } from './ceiling.js';
-import { drawGalaxy, galaxyDeviates, galaxyDrawStream, tabulatedBackground, type GalaxyDraws } from './galaxy-draws.js';
+import { drawGalaxy, galaxyDeviates, galaxyDrawStream, tabulatedBackground, type GalaxyDraws, type KeptDeviates } from './galaxy-draws.js';
 import { DRAW_BLOCK, drawPrecisionOf, FIRST_LOOK, looksFor, normalQuantile, P_CLASS_CHANGE_MAX } from './draw-rule.js';
 import { fillGridCells, type GridCells } from './grid-cells.js';
 import { imfStatistics, makeLookState, medianLook, type ImfResult, type ImfStatistics, type SharedDraws } from './imf-statistics.js';
@@ -136,13 +136,12 @@ function fillGrid(g: GalaxyInput, d: GalaxyDraws, valid: ArrayLike<number>, from
   const yRescale = g.log10Mstar !== undefined ? rescalePosition(grid, la0)[1] : 0;
   for (let i = from; i < to; i++) {
     const k = valid[i];
+    const a = Math.min(Math.max((d.log10AgeMyr[k] - la0) * fa, 0), xTop);
+    x[i] = a;
     if (g.log10Mstar !== undefined) {
-      const a = Math.min(Math.max((d.log10AgeMyr[k] - la0) * fa, 0), xTop);
-      x[i] = a;
       y[i] = yRescale;
       base[i] = rescaleBase(d.log10MassRef[k], ref!, a, yRescale);
     } else {
-      x[i] = Math.min(Math.max((d.log10AgeMyr[k] - la0) * fa, 0), xTop);
       y[i] = Math.min(Math.max((d.log10LambdaRestUm[k] - ll0) * fl, 0), yTop);
       base[i] = d.log10Lnu[k];
     }
@@ -164,9 +163,6 @@ function ceilingOffsets(seed: number, id: string, n: number, sdDex: number, scra
   for (let i = 0; i < n; i++) out[i] *= sdDex;
   return out;
 }
-
-/** A galaxy's first deviates, kept for its draws at fixed redshifts (galaxy-draws.ts). */
-type KeptDeviates = ReturnType<typeof galaxyDeviates>;
 
 /**
  * The galaxy's draws placed at one redshift z (the same band and flux, or the reported mass scaled by

@@ -125,6 +125,8 @@ export interface Deviates {
   readonly beta: Float64Array;
   readonly mass: Float64Array;
 }
+/** A galaxy's first n draws' deviates, kept for its draws at fixed redshifts (galaxyDeviates). */
+export type KeptDeviates = Deviates & { readonly n: number };
 const deviateBlock = (n: number): Deviates => ({ alt: new Float64Array(n), z: new Float64Array(n), age: new Float64Array(n), mag: new Float64Array(n), beta: new Float64Array(n), mass: new Float64Array(n) });
 const block = deviateBlock(DEVIATE_BLOCK);
 
@@ -162,7 +164,7 @@ function deviateStream(g: GalaxyInput, seed: number): (m: number, into: Deviates
  * a zOverride) read them instead of making them again, value for value the same (one stream, read in the
  * same order).
  */
-export function galaxyDeviates(g: GalaxyInput, n: number, seed: number): Deviates & { readonly n: number } {
+export function galaxyDeviates(g: GalaxyInput, n: number, seed: number): KeptDeviates {
   const d = deviateBlock(n);
   deviateStream(g, seed)(n, d);
   return { ...d, n };
@@ -172,7 +174,7 @@ export function galaxyDeviates(g: GalaxyInput, n: number, seed: number): Deviate
  * @param scratch where the draws' arrays come from (reused between calls; valid until the next call
  *   with the same scratch); fresh arrays when absent.
  */
-export function drawGalaxy(g: GalaxyInput, n: number, seed: number, bgFull: Background, zOverride?: { z: number; alt: boolean }, scratch?: Scratch, kept?: Deviates & { readonly n: number }): GalaxyDraws {
+export function drawGalaxy(g: GalaxyInput, n: number, seed: number, bgFull: Background, zOverride?: { z: number; alt: boolean }, scratch?: Scratch, kept?: KeptDeviates): GalaxyDraws {
   const s = galaxyDrawStream(g, n, seed, bgFull, zOverride, scratch, kept);
   s.extend(n);
   return s.draws;
@@ -186,7 +188,7 @@ export function drawGalaxy(g: GalaxyInput, n: number, seed: number, bgFull: Back
  * @param kept the galaxy's deviates made before (galaxyDeviates with the same seed, for at least
  *   `capacity` draws): read instead of the stream, the same numbers.
  */
-export function galaxyDrawStream(g: GalaxyInput, capacity: number, seed: number, bgFull: Background, zOverride?: { z: number; alt: boolean }, scratch?: Scratch, kept?: Deviates & { readonly n: number }): GalaxyDrawStream {
+export function galaxyDrawStream(g: GalaxyInput, capacity: number, seed: number, bgFull: Background, zOverride?: { z: number; alt: boolean }, scratch?: Scratch, kept?: KeptDeviates): GalaxyDrawStream {
   if (kept && kept.n < capacity) throw new RangeError(`draws: ${capacity} asked for, ${kept.n} deviates kept`);
   const next = kept ? undefined : deviateStream(g, seed);
   const bg = fastBackground(bgFull);

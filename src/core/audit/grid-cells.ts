@@ -28,13 +28,20 @@ export function fillGridCells(gx: Float64Array, gy: Float64Array, from: number, 
   }
 }
 
+/** log10 L_ν (erg s⁻¹ Hz⁻¹ per Msun formed) of a table at one draw's cell: logMassToLightAt's bilinear term, term for term. L = the table's logLnu. */
+export function logLnuInCell(L: Float64Array, nLam: number, c: number, tx: number, ty: number): number {
+  return (1 - tx) * ((1 - ty) * L[c] + ty * L[c + 1]) + tx * ((1 - ty) * L[c + nLam] + ty * L[c + nLam + 1]);
+}
+
+/** log10 of the surviving fraction 1 − R of a table at one draw's age cell a: logMassToLightAt's linear term. S = the table's logSurv. */
+export function logSurvivingInCell(S: Float64Array, a: number, tx: number): number {
+  return (1 - tx) * S[a] + tx * S[a + 1];
+}
+
 /**
  * log10 (M/L) (surviving Msun per erg s⁻¹ Hz⁻¹) of a table at one draw's cell: logMassToLightAt's
- * bilinear rule term for term (the same number), without finding the cell again. L = the table's
- * logLnu, S = its logSurv.
+ * rule (the same number), without finding the cell again.
  */
 export function logMassToLightInCell(L: Float64Array, S: Float64Array, nLam: number, a: number, c: number, tx: number, ty: number): number {
-  const lnu = (1 - tx) * ((1 - ty) * L[c] + ty * L[c + 1]) + tx * ((1 - ty) * L[c + nLam] + ty * L[c + nLam + 1]);
-  const surv = (1 - tx) * S[a] + tx * S[a + 1];
-  return surv - lnu;
+  return logSurvivingInCell(S, a, tx) - logLnuInCell(L, nLam, c, tx, ty);
 }

@@ -5,7 +5,7 @@ import { GRID_DLOG10M, lnMassFunctionGrid } from '../halos/mass-function-grid.js
 import type { MassToLightTable } from '../stars/mass-to-light.js';
 import { eddingtonFirstOrderShiftDex, eddingtonPosterior, type LnPrior } from './eddington.js';
 import { medianErrorQuantiles, pClassChange } from './draw-rule.js';
-import { fillGridCells, logMassToLightInCell, type GridCells } from './grid-cells.js';
+import { fillGridCells, logLnuInCell, logMassToLightInCell, logSurvivingInCell, type GridCells } from './grid-cells.js';
 import { verdictFor, type Verdict } from './verdict.js';
 
 export interface ImfResult {
@@ -356,15 +356,12 @@ export function imfStatistics(tab: MassToLightTable, d: SharedDraws, ed: Eddingt
   for (let i = 0; i < nv; i++) {
     const a = ageIndex[i];
     const tx = txs[i];
-    const surv = (1 - tx) * S[a] + tx * S[a + 1];
+    const surv = logSurvivingInCell(S, a, tx);
     let v: number;
     let e: number;
     if (own) {
-      // the table's own bilinear rule (logMassToLightInCell, term for term; surv is wanted on its own below)
-      const c = cell[i];
-      const ty = tys[i];
-      const lnu = (1 - tx) * ((1 - ty) * L[c] + ty * L[c + 1]) + tx * ((1 - ty) * L[c + nLam] + ty * L[c + nLam + 1]);
-      v = base[i] + (surv - lnu);
+      // logMassToLightInCell in its two parts (surv is wanted on its own below)
+      v = base[i] + (surv - logLnuInCell(L, nLam, cell[i], tx, tys[i]));
       lm[i] = v;
       e = v - logCeil[i];
       leps[i] = e;
