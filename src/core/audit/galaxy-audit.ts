@@ -156,7 +156,7 @@ const OFFSET_KINDS = Uint8Array.of(DEVIATE_NORMAL);
  * a stream of its own (seeded from the galaxy's stream seed with a fixed tag), so that the other draws
  * are the same with or without it.
  */
-function ceilingOffsets(seed: number, id: string, n: number, sdDex: number, scratch: Scratch): Float64Array {
+export function ceilingOffsets(seed: number, id: string, n: number, sdDex: number, scratch: Scratch): Float64Array {
   const rnd = makeRandom(idSeed(seed, id) ^ 0x6a09e667);
   const out = scratch.f64('ceiling.offset', n);
   rnd.fill(OFFSET_KINDS, [out], n);

@@ -167,3 +167,18 @@ describe("grid positions per batch, reported masses: the draws' cells equal resc
     }
   });
 });
+
+describe('a reported mass placed at another redshift: scaled with the light it implies', () => {
+  it('log10 M⋆ moves by log10[D_L(z′)² (1+z)/(D_L(z)² (1+z′))] per draw (L_ν = 4π D_L² f_ν/(1+z), Hogg 1999 §7, the section from memory), D_L from the direct integral', () => {
+    // the same deviates at both redshifts, so the difference per draw is the scaling alone
+    const g = { row: 1, id: 'RM-1', z: 8.3, zLo: 8.0, zHi: 8.7, pAlt: 0, log10Mstar: 9.7, log10MstarErr: 0.2, imfRef: 'salpeter', magErr: 0, betaErr: 0 };
+    const atZ = drawGalaxy(g, 1000, 21, bg, { z: g.z, alt: false });
+    for (const zf of [6.1, 9.6, 11.4]) {
+      const moved = drawGalaxy(g, 1000, 21, bg, { z: zf, alt: false });
+      const want = (2 * Math.log(bg.luminosityDistanceMpc(zf) / bg.luminosityDistanceMpc(g.z)) - Math.log((1 + zf) / (1 + g.z))) / Math.LN10;
+      // the draws read D_L from ln(1+z) tables good to 1e-7 relative: 2e-7 / ln 10 in the log, and rounding
+      for (let k = 0; k < moved.n; k++) expect(Math.abs(moved.log10MassRef[k] - atZ.log10MassRef[k] - want)).toBeLessThan(1e-6);
+      expect(Math.abs(want)).toBeGreaterThan(0.05);
+    }
+  });
+});

@@ -2,7 +2,9 @@ import { describe, expect, it } from 'vitest';
 import { uniformFloat64 } from 'pure-rand/distribution/uniformFloat64';
 import { xoroshiro128plus } from 'pure-rand/generator/xoroshiro128plus';
 import erf from '@stdlib/math-base-special-erf';
-import { DEVIATE_NORMAL, DEVIATE_UNIFORM, makeRandom } from '../../../src/core/audit/random.js';
+import { ceilingOffsets } from '../../../src/core/audit/galaxy-audit.js';
+import { DEVIATE_NORMAL, DEVIATE_UNIFORM, idSeed, makeRandom } from '../../../src/core/audit/random.js';
+import { makeScratch } from '../../../src/core/numeric/scratch.js';
 
 // The audit's generator is xoroshiro128+ written out; the reference is pure-rand's own
 // xoroshiro128plus + uniformFloat64 (a general-purpose npm library). The normals (a ziggurat) are
@@ -89,4 +91,25 @@ describe('random stream: a block of deviates (fill) is the same numbers as the c
       expect(block.normal()).toBe(one.normal());
     });
   }
+});
+
+describe("the ceiling offsets' deviates: N(0, sd²) dex from a stream of their own", () => {
+  it('20 000 offsets at sd = 0.07 dex: mean and standard deviation within 4 standard errors of 0 and 0.07 (a normal sample: sd/√n and sd/√(2n); common practice, no source)', () => {
+    const n = 20000;
+    const sd = 0.07;
+    const o = ceilingOffsets(3, 'CO-1', n, sd, makeScratch());
+    let m1 = 0;
+    let m2 = 0;
+    for (let i = 0; i < n; i++) {
+      m1 += o[i];
+      m2 += o[i] * o[i];
+    }
+    const mean = m1 / n;
+    const s = Math.sqrt(m2 / n - mean * mean);
+    expect(Math.abs(mean)).toBeLessThan((4 * sd) / Math.sqrt(n));
+    expect(Math.abs(s - sd)).toBeLessThan((4 * sd) / Math.sqrt(2 * n));
+    // not the galaxy's own stream: its first normals are other numbers
+    const own = makeRandom(idSeed(3, 'CO-1'));
+    expect(o[0]).not.toBe(sd * own.normal());
+  });
 });
