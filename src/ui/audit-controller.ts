@@ -293,10 +293,15 @@ export class AuditController {
       else {
         this.track(id, 1);
         // With a second worker: a first look here (no reconciliation) and the whole audit there, at once.
+        // The whole audit starts once the first look is in (the first look then has the cores to itself,
+        // and a first look with no galaxy left out is already whole), or at once if the main worker still
+        // owes an earlier answer (a map, say), behind which the first look would wait.
         const second = this.secondReady ? this.slots[1] : undefined;
-        whole = second && this.call(second, (api) => api.run(req));
-        whole?.catch(() => undefined); // settled below, or dropped with a newer request
+        const busy = main.pending > 0;
         const first = this.call(main, (api) => api.run(req, Comlink.proxy((done: number, total: number) => this.onProgress(id, main, 0, done, total)), second !== undefined));
+        const wholeAudit = (): Promise<AuditResponse> => this.call(second!, (api) => api.run(req));
+        whole = second && (busy ? wholeAudit() : first.then((r) => (id === this.seq && r.status === 'done' && (r.reconcileLeftOut ?? 0) > 0 ? wholeAudit() : r)));
+        whole?.catch(() => undefined); // settled below, or dropped with a newer request
         resp = await Promise.race([first, whole ?? first]);
       }
       if (!resp || id !== this.seq || resp.status === 'cancelled') return;

@@ -357,14 +357,21 @@ export class BaryonAuditApp extends LitElement {
     }
   }
 
+  /** Resolves once every figure on show has drawn what this update gave it. */
+  private figuresDrawn(): Promise<unknown> {
+    return figureElements().then(() => Promise.all([...this.renderRoot.querySelectorAll('audit-chart')].map((c) => c.updateComplete)));
+  }
+
   protected updated(): void {
-    this.loadMap();
+    // Under a first look the map is asked for once its figures are drawn: the page's drawing then shares
+    // the cores with the worker of the whole audit only, not with the map's too.
+    if (this.ctl.settling) void this.figuresDrawn().then(() => this.loadMap());
+    else this.loadMap();
     this.loadUvSlope();
     const resp = this.ctl.response;
     if (resp && this.ctl.status === 'done' && !this.ctl.settling && resp.id !== this.lastShown) {
       this.lastShown = resp.id;
-      void figureElements()
-        .then(() => Promise.all([...this.renderRoot.querySelectorAll('audit-chart')].map((c) => c.updateComplete)))
+      void this.figuresDrawn()
         .then(() =>
         this.dispatchEvent(new CustomEvent('audit-complete', { detail: { id: resp.id, elapsedMs: resp.elapsedMs }, bubbles: true, composed: true })),
       );

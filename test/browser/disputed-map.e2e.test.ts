@@ -72,4 +72,47 @@ describe('the map of a disputed galaxy (fifth figure)', () => {
     for (const s of ['custom:0.1:1.3:0.5:α:100', 'ε_req = 1', 'ε_ref = 0.3', '99.7% quantile', 'Sheth', 'Eisenstein', 'arcmin²', 'Δz = 1', 'SFH constant']) expect(desc).to.contain(s);
     app.remove();
   });
+  it('under a first look, is asked for only once the first figures are drawn', async () => {
+    localStorage.clear();
+    const log: string[] = [];
+    const Original = window.Worker;
+    // every call the page makes to a worker, by method name, beside the figures' draws, in order
+    window.Worker = class extends Original {
+      constructor(url: string | URL, options?: WorkerOptions) {
+        super(url, options);
+        const post = this.postMessage.bind(this) as (m: unknown, t?: Transferable[]) => void;
+        this.postMessage = ((m: { type?: string; path?: string[] }, t?: Transferable[]) => {
+          if (m?.type === 'APPLY') log.push(`call:${m.path?.join('.')}`);
+          post(m, t);
+        }) as Worker['postMessage'];
+      }
+    };
+    const onDrawn = (e: Event) => log.push(`drawn:${(e as CustomEvent).detail.id}`);
+    const onSettling = () => log.push('audit-complete');
+    document.addEventListener('chart-drawn', onDrawn);
+    document.addEventListener('audit-complete', onSettling);
+    const app = document.createElement('baryon-audit-app') as HTMLElement & { auditController?: { firstLooks: boolean } };
+    try {
+      document.body.append(app);
+      await waitFor('the first audit', () => log.includes('audit-complete'));
+      await waitFor('a second worker ready for first looks', () => app.auditController?.firstLooks);
+      const from = log.length;
+      const panel = app.shadowRoot!.querySelector('choice-panel')!;
+      const seed = [...panel.shadowRoot!.querySelectorAll('input[type=number]')].find((x) => x.parentElement!.textContent!.startsWith('seed')) as HTMLInputElement;
+      seed.value = '4242';
+      seed.dispatchEvent(new Event('change'));
+      await waitFor('the edit audited and its map asked for', () => log.indexOf('audit-complete', from) > 0 && log.indexOf('call:map', from) > 0);
+      const mapAt = log.indexOf('call:map', from);
+      for (const fig of ['mass-redshift', 'density', 'galaxy-imfs']) {
+        const drawnAt = log.indexOf(`drawn:${fig}`, from);
+        expect(drawnAt, `${fig} drawn`).to.be.greaterThan(-1);
+        expect(mapAt, `the map asked for after ${fig} was drawn`).to.be.greaterThan(drawnAt);
+      }
+    } finally {
+      window.Worker = Original;
+      document.removeEventListener('chart-drawn', onDrawn);
+      document.removeEventListener('audit-complete', onSettling);
+      app.remove();
+    }
+  });
 });

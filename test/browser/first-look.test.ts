@@ -39,6 +39,28 @@ async function until(states: ControllerState[], ok: (s: ControllerState) => bool
 
 const whole = (s: ControllerState): boolean => s.status === 'done' && !s.settling;
 
+/** What the page posted to each worker (Comlink calls by method name) and each answer's call id, in order. */
+type Logged = { w: number; kind: 'call' | 'answer'; name?: string; msgId?: string };
+function loggingController(poolSize: number, states: ControllerState[], log: Logged[]): AuditController {
+  let made = 0;
+  return new AuditController(
+    (s) => states.push(s),
+    () => {
+      const w = new Worker(workerUrl, { type: 'module' });
+      const k = made++;
+      w.addEventListener('error', (e) => states.push({ status: 'error', message: `worker error: ${e.message}` } as ControllerState));
+      w.addEventListener('message', (e) => log.push({ w: k, kind: 'answer', msgId: (e.data as { id?: string })?.id }));
+      const post = w.postMessage.bind(w) as (m: unknown, t?: Transferable[]) => void;
+      w.postMessage = ((m: { id?: string; type?: string; path?: string[] }, t?: Transferable[]) => {
+        if (m?.type === 'APPLY') log.push({ w: k, kind: 'call', name: m.path?.join('.'), msgId: m.id });
+        post(m, t);
+      }) as Worker['postMessage'];
+      return w;
+    },
+    poolSize,
+  );
+}
+
 describe('first look, then the whole audit', () => {
   it("shows a first look without the reconciliation, then exactly the single worker's whole audit", async () => {
     const one: ControllerState[] = [];
@@ -94,6 +116,51 @@ describe('first look, then the whole audit', () => {
     await el.updateComplete;
     expect(el.shadowRoot!.querySelector('tr.detail p.rc')!.textContent).to.contain('Run again');
     el.remove();
+    c.dispose();
+  });
+  it('starts the whole audit once the first look is in, not at all when the first look left nothing out, and at once when the main worker is busy', async () => {
+    const states: ControllerState[] = [];
+    const log: Logged[] = [];
+    const c = loggingController(2, states, log);
+    void c.run(DEMO_SAMPLE_CSV, choices);
+    await until(states, whole, 'the first run');
+    const t0 = performance.now();
+    while (!c.firstLooks && performance.now() - t0 < 60000) await new Promise((r) => setTimeout(r, 50));
+    expect(c.firstLooks).to.equal(true);
+    /** The index in the log of worker w's first `run` call from `from` on, and of its answer. */
+    const runCall = (w: number, from: number) => log.findIndex((e, i) => i >= from && e.w === w && e.kind === 'call' && e.name === 'run');
+    const answerTo = (w: number, call: number) => log.findIndex((e, i) => i > call && e.w === w && e.kind === 'answer' && e.msgId === log[call].msgId);
+
+    // an edit: the first look on the main worker (0), the whole audit on the second (1) after its answer
+    let from = log.length;
+    void c.run(DEMO_SAMPLE_CSV, { ...choices, seed: 7 });
+    await until(states, (s) => whole(s) && s.response!.result!.record.choices.seed === 7, 'the edit');
+    const look = runCall(0, from);
+    expect(look).to.be.greaterThan(-1);
+    const wholeCall = runCall(1, from);
+    expect(wholeCall, 'the second worker audits the whole sample').to.be.greaterThan(-1);
+    expect(wholeCall, "the whole audit is asked for after the first look's answer").to.be.greaterThan(answerTo(0, look));
+
+    // a sample with no galaxy in tension (invented): the first look is already whole, the second worker is not asked
+    from = log.length;
+    void c.run('id,z,muv\nQUIET-1,7.2,-17.5', { ...choices, seed: 8 });
+    const quiet = await until(states, (s) => whole(s) && s.response!.result!.record.choices.seed === 8, 'the quiet sample');
+    expect(quiet.response!.reconcileLeftOut ?? 0).to.equal(0);
+    expect(quiet.response!.markdown).to.be.a('string');
+    expect(runCall(1, from), 'no whole audit for a first look that left nothing out').to.equal(-1);
+
+    // the main worker still owes an answer (a map): the whole audit is asked for at once, before the first look's
+    from = log.length;
+    const map = c.map(DEMO_SAMPLE_CSV, choices, 0);
+    void c.run(DEMO_SAMPLE_CSV, { ...choices, seed: 9 });
+    const busyWhole = runCall(1, from);
+    expect(busyWhole, 'asked for at once').to.be.greaterThan(-1);
+    await map;
+    const fin = await until(states, (s) => whole(s) && s.response!.result!.record.choices.seed === 9, 'the edit behind a map');
+    expect(fin.response!.reconcileLeftOut).to.equal(undefined);
+    const mapCall = log.findIndex((e, i) => i >= from && e.w === 0 && e.kind === 'call' && e.name === 'map');
+    expect(answerTo(0, mapCall)).to.be.greaterThan(-1);
+    expect(busyWhole, "asked for before the main worker's answer to the map, so before its first look's too").to.be.lessThan(answerTo(0, mapCall));
     c.dispose();
   });
 });
