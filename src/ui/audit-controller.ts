@@ -289,15 +289,18 @@ export class AuditController {
       const req = { id, csv, choices };
       let resp: AuditResponse | undefined;
       let whole: Promise<AuditResponse> | undefined;
+      /** Whether the first look and the whole audit were asked for at once (then the later answer may be unneeded). */
+      let both = false;
       if (k > 1) resp = await this.runPool(id, req, k, t0);
       else {
         this.track(id, 1);
-        // With a second worker: a first look here (no reconciliation) and the whole audit there, at once.
-        // The whole audit starts once the first look is in (the first look then has the cores to itself,
-        // and a first look with no galaxy left out is already whole), or at once if the main worker still
-        // owes an earlier answer (a map, say), behind which the first look would wait.
+        // With a second worker: a first look here (no reconciliation) and the whole audit there. The whole
+        // audit starts once the first look is in (the first look then has the cores to itself, and a first
+        // look with no galaxy left out is already whole), or at once if the main worker still owes an
+        // earlier answer (a map, say), behind which the first look would wait.
         const second = this.secondReady ? this.slots[1] : undefined;
         const busy = main.pending > 0;
+        both = second !== undefined && busy;
         const first = this.call(main, (api) => api.run(req, Comlink.proxy((done: number, total: number) => this.onProgress(id, main, 0, done, total)), second !== undefined));
         const wholeAudit = (): Promise<AuditResponse> => this.call(second!, (api) => api.run(req));
         whole = second && (busy ? wholeAudit() : first.then((r) => (id === this.seq && r.status === 'done' && (r.reconcileLeftOut ?? 0) > 0 ? wholeAudit() : r)));
@@ -310,7 +313,7 @@ export class AuditController {
       const settling = (full.reconcileLeftOut ?? 0) > 0 && whole !== undefined;
       this.show(id, full, settling, csv, choices);
       if (settling) await this.settle(id, full, whole!, t0);
-      else if (whole) for (const s of this.slots.slice(0, 2)) void s.api.cancel(); // one answer was whole: the other is not needed
+      else if (both) for (const s of this.slots.slice(0, 2)) void s.api.cancel(); // one answer was whole: the other is not needed
       else if (k === 1) this.readySecond(req);
     } catch (e) {
       if (id !== this.seq) return;

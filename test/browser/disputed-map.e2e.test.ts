@@ -88,9 +88,9 @@ describe('the map of a disputed galaxy (fifth figure)', () => {
       }
     };
     const onDrawn = (e: Event) => log.push(`drawn:${(e as CustomEvent).detail.id}`);
-    const onSettling = () => log.push('audit-complete');
+    const onComplete = () => log.push('audit-complete');
     document.addEventListener('chart-drawn', onDrawn);
-    document.addEventListener('audit-complete', onSettling);
+    document.addEventListener('audit-complete', onComplete);
     const app = document.createElement('baryon-audit-app') as HTMLElement & { auditController?: { firstLooks: boolean } };
     try {
       document.body.append(app);
@@ -111,7 +111,7 @@ describe('the map of a disputed galaxy (fifth figure)', () => {
     } finally {
       window.Worker = Original;
       document.removeEventListener('chart-drawn', onDrawn);
-      document.removeEventListener('audit-complete', onSettling);
+      document.removeEventListener('audit-complete', onComplete);
       app.remove();
     }
   });

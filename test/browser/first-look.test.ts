@@ -13,12 +13,26 @@ import { DEMO_SAMPLE_CSV } from '../../src/demo/demo-sample.js';
 const workerUrl = new URL('../../public/audit.worker.js', import.meta.url);
 const choices = { ...DEFAULT_CHOICES, draws: 600, imfs: ['salpeter', 'top-heavy-flat'] };
 
-function controller(poolSize: number, states: ControllerState[]): AuditController {
+/** What the page posted to each worker (Comlink calls by method name) and each answer's call id, in order. */
+type Logged = { w: number; kind: 'call' | 'answer'; name?: string; msgId?: string };
+
+/** A controller on the built worker; with `log`, every call to a worker and every answer is logged there. */
+function controller(poolSize: number, states: ControllerState[], log?: Logged[]): AuditController {
+  let made = 0;
   return new AuditController(
     (s) => states.push(s),
     () => {
       const w = new Worker(workerUrl, { type: 'module' });
       w.addEventListener('error', (e) => states.push({ status: 'error', message: `worker error: ${e.message}` } as ControllerState));
+      if (log) {
+        const k = made++;
+        w.addEventListener('message', (e) => log.push({ w: k, kind: 'answer', msgId: (e.data as { id?: string })?.id }));
+        const post = w.postMessage.bind(w) as (m: unknown, t?: Transferable[]) => void;
+        w.postMessage = ((m: { id?: string; type?: string; path?: string[] }, t?: Transferable[]) => {
+          if (m?.type === 'APPLY') log.push({ w: k, kind: 'call', name: m.path?.join('.'), msgId: m.id });
+          post(m, t);
+        }) as Worker['postMessage'];
+      }
       return w;
     },
     poolSize,
@@ -38,28 +52,6 @@ async function until(states: ControllerState[], ok: (s: ControllerState) => bool
 }
 
 const whole = (s: ControllerState): boolean => s.status === 'done' && !s.settling;
-
-/** What the page posted to each worker (Comlink calls by method name) and each answer's call id, in order. */
-type Logged = { w: number; kind: 'call' | 'answer'; name?: string; msgId?: string };
-function loggingController(poolSize: number, states: ControllerState[], log: Logged[]): AuditController {
-  let made = 0;
-  return new AuditController(
-    (s) => states.push(s),
-    () => {
-      const w = new Worker(workerUrl, { type: 'module' });
-      const k = made++;
-      w.addEventListener('error', (e) => states.push({ status: 'error', message: `worker error: ${e.message}` } as ControllerState));
-      w.addEventListener('message', (e) => log.push({ w: k, kind: 'answer', msgId: (e.data as { id?: string })?.id }));
-      const post = w.postMessage.bind(w) as (m: unknown, t?: Transferable[]) => void;
-      w.postMessage = ((m: { id?: string; type?: string; path?: string[] }, t?: Transferable[]) => {
-        if (m?.type === 'APPLY') log.push({ w: k, kind: 'call', name: m.path?.join('.'), msgId: m.id });
-        post(m, t);
-      }) as Worker['postMessage'];
-      return w;
-    },
-    poolSize,
-  );
-}
 
 describe('first look, then the whole audit', () => {
   it("shows a first look without the reconciliation, then exactly the single worker's whole audit", async () => {
@@ -121,7 +113,7 @@ describe('first look, then the whole audit', () => {
   it('starts the whole audit once the first look is in, not at all when the first look left nothing out, and at once when the main worker is busy', async () => {
     const states: ControllerState[] = [];
     const log: Logged[] = [];
-    const c = loggingController(2, states, log);
+    const c = controller(2, states, log);
     void c.run(DEMO_SAMPLE_CSV, choices);
     await until(states, whole, 'the first run');
     const t0 = performance.now();
