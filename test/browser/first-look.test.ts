@@ -140,6 +140,7 @@ describe('first look, then the whole audit', () => {
     expect(quiet.response!.reconcileLeftOut ?? 0).to.equal(0);
     expect(quiet.response!.markdown).to.be.a('string');
     expect(runCall(1, from), 'no whole audit for a first look that left nothing out').to.equal(-1);
+    expect(log.slice(from).some((e) => e.kind === 'call' && e.name === 'cancel'), 'nothing to cancel: only the first look ran').to.equal(false);
 
     // the main worker still owes an answer (a map): the whole audit is asked for at once, before the first look's
     from = log.length;
