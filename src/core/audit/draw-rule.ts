@@ -13,13 +13,15 @@ import { DRAW_RULE_SPECS, specByKey } from './choice-specs.js';
  * - the verdict is settled when the median of log10 ε_req is at least z·error away from both
  *   thresholds (log10 ε_ref and 0), z = Φ⁻¹(1 − P_CLASS_CHANGE_MAX / L) with L the number of looks
  *   the maximum allows (a Bonferroni bound, so the chance that any look stops on the wrong side stays
- *   below P_CLASS_CHANGE_MAX under the normal approximation of the median);
+ *   below P_CLASS_CHANGE_MAX under the normal approximation of the median), the error taken there at
+ *   its upper confidence limit (errorUpperLimit: the estimate itself scatters by ~n^(−1/4), and a low
+ *   estimate must not settle a verdict that sits on its threshold);
  * - it stops when every IMF's verdict is settled and both errors are ≤ the precision drawPrecisionDex.
  * The rule depends only on the draws, so seed + id + these constants reproduce every stop.
  */
-export const DRAW_BLOCK = 1000;
-/** The first look comes after this many draws (a look at fewer rarely stops at the default precision). */
-export const FIRST_LOOK = 2000;
+export const DRAW_BLOCK = 250;
+/** The first look comes after this many draws (on the benchmark sample a quarter of the galaxies stop there at the default precision). */
+export const FIRST_LOOK = 1000;
 export const P_CLASS_CHANGE_MAX = 1e-3;
 
 /** The precision of the medians the rule asks for: the choice, or its default (DRAW_RULE_SPECS). */
@@ -33,7 +35,8 @@ export function drawRuleText(c: { readonly fixedDraws?: boolean; readonly draws:
   return (
     `adaptive: ${FIRST_LOOK} draws, then blocks of ${DRAW_BLOCK}, up to ${c.draws}; stop when, for every compared IMF, the Monte Carlo errors of the medians of ` +
     `log10 M* and log10 eps_req (half the spread of the order statistics at ranks n/2 ± sqrt(n)/2) are ≤ ${drawPrecisionOf(c)} dex and the ` +
-    `median eps_req is z errors from both thresholds, z = Phi^-1(1 − ${P_CLASS_CHANGE_MAX}/looks), looks = ${looksFor(c.draws)}`
+    `median eps_req is z errors from both thresholds, z = Phi^-1(1 − ${P_CLASS_CHANGE_MAX}/looks), looks = ${looksFor(c.draws)}, the error there at its ` +
+    `upper ${1 - P_CLASS_CHANGE_MAX} confidence limit (the spread spans k = (n − 1)/sqrt(n) gaps, ~ Gamma(k); Wilson–Hilferty quantile)`
   );
 }
 
@@ -41,6 +44,32 @@ export function drawRuleText(c: { readonly fixedDraws?: boolean; readonly draws:
 export function medianErrorQuantiles(n: number): [number, number, number] {
   const d = 0.5 / Math.sqrt(Math.max(n, 1));
   return [0.5 - d, 0.5, 0.5 + d];
+}
+
+/**
+ * The upper confidence limit of a median's Monte Carlo error estimate from n draws (medianErrorQuantiles):
+ * the estimate is half the spread of the order statistics at the type-7 positions (n − 1)(0.5 ∓ 0.5/√n),
+ * k = (n − 1)/√n gaps apart. Near the median the density is about constant, so the spread is that of
+ * uniform order statistics, n (U₍ⱼ₎ − U₍ᵢ₎) → Gamma(j − i, 1) for large n (David & Nagaraja 2003,
+ * "Order Statistics", 3rd ed., §2.5, from memory), and estimate/error ~ Gamma(k, 1)/k. The limit is
+ * estimate · k / g, g the lower `alpha` quantile of Gamma(k, 1) by the Wilson & Hilferty (1931, PNAS 17,
+ * 684) cube root: g = k (1 − 1/(9k) + Φ⁻¹(alpha)/(3√k))³, alpha = P_CLASS_CHANGE_MAX (slightly below the
+ * exact quantile, by < 0.5% for k ≥ 20, i.e. n ≥ 400: adaptive-draws.test.ts against scipy), so the limit
+ * errs high. Same unit as the estimate (dex).
+ */
+export function errorUpperLimit(errorDex: number, n: number): number {
+  const k = (n - 1) / Math.sqrt(n);
+  const g = gammaLowerQuantile(k);
+  if (!(g > 0)) throw new RangeError(`median error's upper limit: ${n} draws are too few (the Gamma(${k.toFixed(2)}) quantile at ${P_CLASS_CHANGE_MAX} is not positive)`);
+  return (errorDex * k) / g;
+}
+
+/** Φ⁻¹(P_CLASS_CHANGE_MAX), found once (normalQuantile bisects). */
+let zAlpha: number | undefined;
+/** The lower P_CLASS_CHANGE_MAX quantile of Gamma(k, 1) by the Wilson–Hilferty cube root (errorUpperLimit). */
+export function gammaLowerQuantile(k: number): number {
+  zAlpha ??= normalQuantile(P_CLASS_CHANGE_MAX);
+  return k * (1 - 1 / (9 * k) + zAlpha / (3 * Math.sqrt(k))) ** 3;
 }
 
 /** Standard normal CDF Φ(x) = erfc(−x/√2)/2 (stdlib's erfc: accurate to rounding, also far in the lower tail). */

@@ -10,7 +10,7 @@ import { attribute, type AttributionDetail } from './attribution.js';
 import type { AuditChoices } from './choices.js';
 import type { CeilingTable } from './ceiling.js';
 import { drawGalaxy, galaxyDeviates, galaxyDrawStream, tabulatedBackground, type GalaxyDraws, type KeptDeviates } from './galaxy-draws.js';
-import { DRAW_BLOCK, drawPrecisionOf, FIRST_LOOK, looksFor, normalQuantile, P_CLASS_CHANGE_MAX } from './draw-rule.js';
+import { DRAW_BLOCK, drawPrecisionOf, errorUpperLimit, FIRST_LOOK, looksFor, normalQuantile, P_CLASS_CHANGE_MAX } from './draw-rule.js';
 import { fillGridCells, type GridCells } from './grid-cells.js';
 import { imfStatistics, makeLookState, medianLook, type ImfResult, type ImfStatistics, type SharedDraws } from './imf-statistics.js';
 import { rescaleBase, rescalePosition } from './imf-rescale.js';
@@ -307,13 +307,14 @@ function mainDraws(ctx: AuditContext, g: GalaxyInput, seed: number, imfTables: r
     fillGridCells(grid.x, grid.y, nv0, nv, cells);
     ceil.log10HaloMassesAt(d.z, validBuf.subarray(nv0, nv), nv - nv0, undefined, lfb, logCeilBuf.subarray(nv0, nv));
     if (fixed || n >= nMax) break;
-    // a look needs half the first look's draws valid; every IMF settled, both errors within the precision
+    // a look needs half the first look's draws valid; every IMF settled (z errors from both thresholds,
+    // the error at its upper confidence limit), both errors within the precision
     if (nv >= FIRST_LOOK / 2) {
       let settled = true;
       for (let j = 0; j < imfTables.length && settled; j++) {
         const m = medianLook(imfTables[j], cells, grid.base, logCeilBuf, nv, looks[j]);
         const dist = Math.min(Math.abs(m.logEpsMedian - Math.log10(choices.epsRef)), Math.abs(m.logEpsMedian));
-        settled = m.logMstarErrDex <= precision && m.logEpsErrDex <= precision && dist >= zLook * m.logEpsErrDex;
+        settled = m.logMstarErrDex <= precision && m.logEpsErrDex <= precision && dist >= zLook * errorUpperLimit(m.logEpsErrDex, nv);
       }
       if (settled) {
         stop = 'settled';
