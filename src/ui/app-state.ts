@@ -1,4 +1,4 @@
-import { validateRecord, RECORD_FORMAT, TOOL_NAME, TOOL_VERSION, type AuditRecord } from '../core/audit/record.js';
+import { reproduction, validateRecord, RECORD_FORMAT, TOOL_NAME, TOOL_VERSION, type AuditRecord } from '../core/audit/record.js';
 import type { AuditChoices } from '../core/audit/choices.js';
 
 /**
@@ -45,6 +45,15 @@ export function decodeShare(hash: string): AuditRecord {
     throw new RangeError('the link is damaged or truncated (its state is not valid JSON)');
   }
   return validateRecord(json);
+}
+
+/**
+ * '' for a record whose numbers this version reproduces exactly; otherwise a sentence for the page's
+ * notice (leading space): the record opens, its numbers are this version's, and why they can differ.
+ */
+export function notExactNote(rec: AuditRecord): string {
+  const r = reproduction(rec);
+  return r.exact ? '' : ` It was made by ${TOOL_NAME} ${rec.version} with adaptive draws: its numbers are now those of ${TOOL_VERSION} and can differ from the old ones by about their Monte Carlo errors (${r.changed}).`;
 }
 
 /** A record from an exported JSON file: the full audit output (with .record) or a bare record (the core's schema). */

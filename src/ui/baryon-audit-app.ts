@@ -3,7 +3,7 @@ import { customElement, state } from 'lit/decorators.js';
 import { normalizeChoices, type AuditChoices } from '../core/audit/choices.js';
 import type { RowProblem } from '../core/audit/sample.js';
 import { DEMO_SAMPLE_CSV, DEMO_SURVEY } from '../demo/demo-sample.js';
-import { decodeShare, encodeShare, loadSaved, makeRecord, recordFromJson, save } from './app-state.js';
+import { decodeShare, encodeShare, loadSaved, makeRecord, notExactNote, recordFromJson, save } from './app-state.js';
 import { AuditController, type ControllerState } from './audit-controller.js';
 import type { ChartModel } from './chart/chart-config.js';
 import { densityFigure, explorerFigure, galaxyImfFigure, massRedshiftFigure } from './chart/figures.js';
@@ -173,15 +173,18 @@ export class BaryonAuditApp extends LitElement {
       try {
         const rec = decodeShare(location.hash);
         this.open(rec.sample_csv, rec.choices, 'open the link');
-        this.notice = 'State restored from the link.';
+        this.notice = `State restored from the link.${notExactNote(rec)}`;
         return;
       } catch (e) {
         this.notice = `This share link could not be used: ${(e as Error).message}. The saved or demo state was loaded instead.`;
       }
     }
     const saved = loadSaved(localStorage);
-    if (saved.record) this.open(saved.record.sample_csv, saved.record.choices, 'open the saved state');
-    else if (saved.problem) this.notice = `Note: ${saved.problem}.`;
+    if (saved.record) {
+      this.open(saved.record.sample_csv, saved.record.choices, 'open the saved state');
+      const note = notExactNote(saved.record);
+      if (note) this.notice = `Saved state restored.${note}`;
+    } else if (saved.problem) this.notice = `Note: ${saved.problem}.`;
   }
 
   /** A state opened from a link or the saved state starts a fresh history. */
@@ -412,7 +415,7 @@ export class BaryonAuditApp extends LitElement {
     try {
       const rec = recordFromJson(await f.text());
       this.commit(rec.sample_csv, rec.choices, `import ${f.name}`);
-      this.notice = `Restored ${f.name} (Undo returns to the previous state).`;
+      this.notice = `Restored ${f.name} (Undo returns to the previous state).${notExactNote(rec)}`;
     } catch (err) {
       this.notice = `${f.name} could not be imported: ${(err as Error).message}`;
     }

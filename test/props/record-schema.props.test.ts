@@ -4,8 +4,8 @@ import { join } from 'node:path';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { runCli } from '../cli/run-cli.js';
-import { validateRecord } from '../../src/core/audit/index.js';
-import { decodeShare, encodeShare, loadSaved, makeRecord, recordFromJson, save, STORAGE_KEY } from '../../src/ui/app-state.js';
+import { reproduction, TOOL_VERSION, validateRecord } from '../../src/core/audit/index.js';
+import { decodeShare, encodeShare, loadSaved, makeRecord, notExactNote, recordFromJson, save, STORAGE_KEY } from '../../src/ui/app-state.js';
 import { DEFAULT_CHOICES } from '../../src/ui/default-choices.js';
 
 const run = runCli;
@@ -56,8 +56,40 @@ describe('records, share links and saved state: one validated schema', () => {
   }
 
   it('unknown versions and formats are refused with a message', () => {
-    expect(() => validateRecord({ ...REC, version: '9.9.9' })).toThrow(/record\.version: .*reproduces records of version 0\.1\.0/);
+    expect(() => validateRecord({ ...REC, version: '9.9.9' })).toThrow(/record\.version: this is baryon-audit 0\.2\.0, which reads records of version 0\.2\.0, 0\.1\.0 \(got "9\.9\.9"\)/);
     expect(() => validateRecord({ ...REC, format: 2 })).toThrow(/record\.format/);
+  });
+
+  it('a record of 0.1.0 is reproduced with fixed draws; with adaptive draws (the rule changed in 0.2.0) --record refuses it and the page opens it with a note', async () => {
+    // 0.2.0 changed only the adaptive draw rule (draw-rule.ts: first look 1000, blocks of 250, the error at its upper limit; 0.1.0: 2000, 1000)
+    const fixedOld = { ...REC, version: '0.1.0', choices: { ...REC.choices, fixedDraws: true } };
+    const adaptiveOld = { ...REC, version: '0.1.0' };
+    expect(reproduction(validateRecord(REC))).toEqual({ exact: true });
+    expect(reproduction(validateRecord(fixedOld))).toEqual({ exact: true });
+    expect(reproduction(validateRecord(adaptiveOld)).exact).toBe(false);
+    // the CLI re-runs the fixed-draw record of 0.1.0 to the numbers of the same record of this version
+    const write = (name: string, rec: unknown): string => {
+      const f = join(tmp, name);
+      writeFileSync(f, JSON.stringify(rec));
+      return f;
+    };
+    const a = await run(['assess', '--record', write('old-fixed.json', fixedOld), '--format', 'json']);
+    const b = await run(['assess', '--record', write('new-fixed.json', { ...fixedOld, version: TOOL_VERSION }), '--format', 'json']);
+    expect(a.code, a.err).toBe(0);
+    expect(JSON.parse(a.out).galaxies).toEqual(JSON.parse(b.out).galaxies);
+    // and refuses the adaptive one in one line that names the field and the change
+    const c = await run(['assess', '--record', write('old-adaptive.json', adaptiveOld), '--format', 'json']);
+    expect(c.code).toBe(2);
+    expect(c.err.trim().split('\n')).toHaveLength(1);
+    expect(c.err).toMatch(/record\.version: a record of baryon-audit 0\.1\.0 with adaptive draws is not reproduced exactly by 0\.2\.0: its adaptive draw rule looked first at 2000 draws/);
+    // the page keeps the sample of a link, a saved state or an imported file, and says its numbers are this version's
+    expect(notExactNote(validateRecord(fixedOld))).toBe('');
+    expect(notExactNote(validateRecord(adaptiveOld))).toMatch(/made by baryon-audit 0\.1\.0 with adaptive draws: its numbers are now those of 0\.2\.0/);
+    const st = memoryStorage();
+    st.setItem(STORAGE_KEY, JSON.stringify(adaptiveOld));
+    expect(loadSaved(st)).toEqual({ record: adaptiveOld });
+    expect(decodeShare(encodeShare(adaptiveOld as never))).toEqual(adaptiveOld);
+    expect(recordFromJson(JSON.stringify(adaptiveOld))).toEqual(adaptiveOld);
   });
 
   it("the tool's own JSON output is a record for --record, the import and the link, as the README says", async () => {

@@ -9,6 +9,7 @@ import {
   specByKey,
   SURVEY_SPECS,
   validateRecord,
+  reproduction,
   type AuditChoices,
   type ChoiceSpec,
   type Survey,
@@ -139,6 +140,9 @@ export async function runAssess(argv: string[], out: LineOut = () => undefined, 
       if (e instanceof CliError) throw e;
       throw new CliError(`--record ${values.record}: ${(e as Error).message}`);
     }
+    // --record promises the record's numbers exactly: a record this version would compute differently is refused
+    const rep = reproduction(rec);
+    if (!rep.exact) throw new CliError(`--record ${values.record}: ${rep.reason}. Re-run it with that version for its exact numbers`);
     csv = rec.sample_csv;
     choices = rec.choices;
   } else {

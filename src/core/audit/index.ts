@@ -1,6 +1,6 @@
 export { runAudit, prepareAudit, auditRow, finishAudit, firstNonFinite, AUDIT_CAUTION, newTally, tallyRow, sampleLevel, auditRecord } from './run-audit.js';
 export type { AuditResult, GalaxyRow, PreparedAudit, SampleTally } from './run-audit.js';
-export { validateRecord, recordIn, TOOL_NAME, TOOL_VERSION, RECORD_FORMAT, READABLE_VERSIONS } from './record.js';
+export { validateRecord, recordIn, reproduction, TOOL_NAME, TOOL_VERSION, RECORD_FORMAT, READABLE_VERSIONS } from './record.js';
 export type { AuditRecord } from './record.js';
 export type { AuditChoices } from './choices.js';
 export { DEFAULT_IMFS, RESCALE_REST_UM, validateChoices, normalizeChoices } from './choices.js';

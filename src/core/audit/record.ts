@@ -2,10 +2,23 @@ import { checkChoices } from './choice-schema.js';
 import type { AuditChoices } from './choices.js';
 
 export const TOOL_NAME = 'baryon-audit';
-export const TOOL_VERSION = '0.1.0';
+export const TOOL_VERSION = '0.2.0';
 export const RECORD_FORMAT = 1;
-/** Tool versions whose records this version reproduces exactly. */
-export const READABLE_VERSIONS: readonly string[] = [TOOL_VERSION];
+
+/**
+ * Earlier versions whose records this version reads, each with the records it still reproduces exactly
+ * and what changed for the others. 0.2.0 changed the adaptive draw rule only (draw-rule.ts); fixed-draw
+ * numbers are byte-identical (test/bench/golden.mjs).
+ */
+const EARLIER_VERSIONS: Readonly<Record<string, { readonly reproduces: (c: { readonly fixedDraws?: boolean }) => boolean; readonly changed: string }>> = {
+  '0.1.0': {
+    reproduces: (c) => c.fixedDraws === true,
+    changed:
+      'its adaptive draw rule looked first at 2000 draws, then every 1000, with the error estimate itself; this version looks at 1000, then every 250, with the error at its upper confidence limit, so a galaxy can stop at another number of draws; its fixed-draw records reproduce exactly',
+  },
+};
+/** Tool versions whose records this version reads (exactly reproduced or not: reproduction). */
+export const READABLE_VERSIONS: readonly string[] = [TOOL_VERSION, ...Object.keys(EARLIER_VERSIONS)];
 
 /** Everything needed to reproduce an audit exactly: the sample as given and every choice. */
 export interface AuditRecord {
@@ -39,7 +52,7 @@ export function validateRecord(x: unknown): AuditRecord {
   if (r.tool !== TOOL_NAME) throw new RangeError(`record.tool: expected "${TOOL_NAME}" (got ${JSON.stringify(r.tool) ?? 'nothing'})`);
   if (r.format !== RECORD_FORMAT) throw new RangeError(`record.format: this version reads format ${RECORD_FORMAT} (got ${JSON.stringify(r.format) ?? 'nothing'})`);
   if (typeof r.version !== 'string' || !READABLE_VERSIONS.includes(r.version)) {
-    throw new RangeError(`record.version: this is ${TOOL_NAME} ${TOOL_VERSION}, which reproduces records of version ${READABLE_VERSIONS.join(', ')} (got ${JSON.stringify(r.version) ?? 'nothing'})`);
+    throw new RangeError(`record.version: this is ${TOOL_NAME} ${TOOL_VERSION}, which reads records of version ${READABLE_VERSIONS.join(', ')} (got ${JSON.stringify(r.version) ?? 'nothing'})`);
   }
   const extra = Object.keys(r).find((k) => !RECORD_KEYS.includes(k));
   if (extra !== undefined) throw new RangeError(`record.${extra}: not a field of a record (fields: ${RECORD_KEYS.join(', ')})`);
@@ -50,4 +63,15 @@ export function validateRecord(x: unknown): AuditRecord {
   const problems = checkChoices(r.choices);
   if (problems.length) throw new RangeError(problems.map((p) => `record.choices.${p.field}: ${p.reason}`).join('; '));
   return r as unknown as AuditRecord;
+}
+
+/**
+ * Whether this version reproduces a (validated) record's numbers exactly; where it does not, why, in a
+ * sentence that starts with `record.version`, and what changed. The CLI refuses such a record; the page opens it (the
+ * sample and choices are valid here) and says that its numbers are this version's.
+ */
+export function reproduction(rec: AuditRecord): { readonly exact: true } | { readonly exact: false; readonly reason: string; readonly changed: string } {
+  const earlier = rec.version === TOOL_VERSION ? undefined : EARLIER_VERSIONS[rec.version];
+  if (!earlier || earlier.reproduces(rec.choices)) return { exact: true };
+  return { exact: false, reason: `record.version: a record of ${TOOL_NAME} ${rec.version} with adaptive draws is not reproduced exactly by ${TOOL_VERSION}: ${earlier.changed}`, changed: earlier.changed };
 }
