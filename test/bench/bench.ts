@@ -12,7 +12,8 @@ import { makeHaloModel } from '../../src/core/halos/index.js';
 import { makeLinearPower, makeSigmaTable } from '../../src/core/power/index.js';
 import { estimateMass, makeMassToLightTable, makePopulationCache, parseSfh } from '../../src/core/stars/index.js';
 import { parseSample, runAudit, type AuditChoices } from '../../src/core/audit/index.js';
-import { benchChoices, sample } from './audit-sample.js';
+import { benchChoices, nearChoices, nearThresholdSample, sample } from './audit-sample.js';
+import { P_CLASS_CHANGE_MAX } from '../../src/core/audit/draw-rule.js';
 import { writeNumpyInputs } from './numpy-inputs.js';
 
 function median(xs: number[]): number {
@@ -197,6 +198,44 @@ if (!auditOnly) {
   report('audit CLI: the same, default (adaptive, --draws 20000 at most)', wallDefault, '—');
 }
 
+}
+
+// 5a. the adaptive verdicts near the thresholds, over many seeds: wherever the fixed run's own verdict is
+// settled (P(class change) < 1e-3), the adaptive verdict must be the same; a galaxy whose fixed verdict is
+// not settled should run to the maximum (the 18 invented masses of adaptive-draws.test.ts, ±0.04 dex
+// around ε_ref and 1; BENCH_NEAR_SEEDS seeds, 60 by default)
+if (!numpyOnly) {
+  const seeds = Number(process.env.BENCH_NEAR_SEEDS ?? 60);
+  const csv = nearThresholdSample(nearChoices());
+  let compared = 0;
+  let differ = 0;
+  let unsettled = 0;
+  let stoppedEarly = 0;
+  let drawsAdaptive = 0;
+  let galaxies = 0;
+  for (let seed = 1; seed <= seeds; seed++) {
+    const f = runAudit(csv, nearChoices({ seed, fixedDraws: true }));
+    const a = runAudit(csv, nearChoices({ seed }));
+    f.galaxies.forEach((g, i) => {
+      const ag = a.galaxies[i];
+      galaxies++;
+      drawsAdaptive += ag.monte_carlo!.draws_made;
+      const imfs = Object.entries(g.imf!);
+      if (imfs.some(([, r]) => r.p_verdict_change >= P_CLASS_CHANGE_MAX)) {
+        unsettled++;
+        if (ag.monte_carlo!.stop !== 'maximum') stoppedEarly++;
+      }
+      for (const [imf, r] of imfs) {
+        if (r.p_verdict_change >= P_CLASS_CHANGE_MAX) continue;
+        compared++;
+        if (ag.imf![imf].verdict !== r.verdict) differ++;
+      }
+    });
+  }
+  const name = `adaptive verdicts near the thresholds (${seeds} seeds × 18 invented galaxies × 2 IMFs, 20000 draws at most): verdicts that differ from a settled fixed-draw verdict`;
+  rows.push([name, `${differ} of ${compared}`, '0', `${unsettled} galaxies unsettled in the fixed run, ${stoppedEarly} of them stopped before the maximum; ${(drawsAdaptive / galaxies).toFixed(0)} draws per galaxy`]);
+  console.log(`${name}: ${differ} of ${compared}   target 0`);
+  console.log(`   galaxies whose fixed-draw verdict is unsettled: ${unsettled}, of which ${stoppedEarly} stopped before the maximum; adaptive draws per galaxy: ${(drawsAdaptive / galaxies).toFixed(0)}`);
 }
 
 // 5b. side by side with a vectorised numpy script doing the same per-draw work (numpy_audit.py), one

@@ -1,33 +1,20 @@
 import { describe, expect, it } from 'vitest';
-import { checkChoices, prepareAudit, runAudit, validateRecord, type AuditChoices } from '../../../src/core/audit/index.js';
+import { checkChoices, runAudit, validateRecord } from '../../../src/core/audit/index.js';
 import { errorUpperLimit, gammaLowerQuantile, looksFor, medianErrorQuantiles, normalCdf, normalQuantile, P_CLASS_CHANGE_MAX } from '../../../src/core/audit/draw-rule.js';
 import { DEVIATE_NORMAL, makeRandom } from '../../../src/core/audit/random.js';
 import { quantilesBySelection } from '../../../src/core/numeric/select.js';
-import { DEFAULT_CHOICES } from '../../../src/ui/default-choices.js';
+import { NEAR_HEADER, nearChoices, nearThresholdSample } from '../../bench/audit-sample.js';
 import normalFixture from '../../fixtures/scipy/normal-cdf.json';
 
 // The adaptive Monte Carlo rule (draw-rule.ts) against the fixed-draw audit it shortens, on invented
 // galaxies. The references are the fixed-draw runs themselves and the scatter over seeds.
-const choices = (over: Partial<AuditChoices> = {}): AuditChoices => ({
-  ...DEFAULT_CHOICES,
-  imfs: ['salpeter', 'chabrier'],
-  draws: 20000,
-  seed: 3,
-  survey: { name: 'test-field', areaArcmin2: 40, zMin: 8.5, zMax: 9.5 },
-  ...over,
-});
-
-// Reported masses placed around both thresholds (ε_ref = 0.3 and 1) of the headline IMF at z = 9: the
-// stellar ceiling f_b M_q(9) from the audit's own ceiling table, offsets from −0.04 to +0.04 dex.
-const HEADER = 'id,z,z_lo,z_hi,log_mstar,imf_ref,log_mstar_err';
-const probe = prepareAudit(`${HEADER}\nP-0,9,8.9,9.1,9,salpeter,0.15\n`, choices());
-const logCeil9 = Math.log10(probe.ctx.halo.baryonFraction) + probe.ctx.ceilingFor(undefined).log10HaloMassAtQuantile(9);
-const OFFSETS = [-0.04, -0.02, -0.01, -0.005, 0, 0.005, 0.01, 0.02, 0.04];
-const rows: string[] = [];
-for (const [t, eps] of [['R', 0.3], ['O', 1]] as const) {
-  OFFSETS.forEach((d, i) => rows.push(`${t}-${i},9,8.9,9.1,${(logCeil9 + Math.log10(eps) + d).toFixed(4)},salpeter,0.15`));
-}
-const NEAR = `${HEADER}\n${rows.join('\n')}\n`;
+// The sample: 18 invented reported masses at z = 9, −0.04 to +0.04 dex around both thresholds (ε_ref = 0.3
+// and 1) of the headline IMF, from the audit's own ceiling table (test/bench/audit-sample.ts, shared with
+// the benchmark's check of the adaptive verdicts over more seeds).
+const choices = nearChoices;
+const HEADER = NEAR_HEADER;
+const NEAR = nearThresholdSample(choices());
+const rows = NEAR.trimEnd().split('\n').slice(1);
 const fixed = runAudit(NEAR, choices({ fixedDraws: true }));
 const adaptive = runAudit(NEAR, choices());
 
