@@ -53,7 +53,7 @@ export function decodeShare(hash: string): AuditRecord {
  */
 export function notExactNote(rec: AuditRecord): string {
   const r = reproduction(rec);
-  return r.exact ? '' : ` It was made by ${TOOL_NAME} ${rec.version} with adaptive draws: its numbers are now those of ${TOOL_VERSION} and can differ from the old ones by about their Monte Carlo errors (${r.changed}).`;
+  return r.exact ? '' : ` It was made by ${TOOL_NAME} ${rec.version} ${r.others}: its numbers are now those of ${TOOL_VERSION} and can differ from the old ones by about their Monte Carlo errors (${r.changed}).`;
 }
 
 /** A record from an exported JSON file: the full audit output (with .record) or a bare record (the core's schema). */

@@ -10,9 +10,18 @@ export const RECORD_FORMAT = 1;
  * and what changed for the others. 0.2.0 changed the adaptive draw rule only (draw-rule.ts); fixed-draw
  * numbers are byte-identical (test/bench/golden.mjs).
  */
-const EARLIER_VERSIONS: Readonly<Record<string, { readonly reproduces: (c: { readonly fixedDraws?: boolean }) => boolean; readonly changed: string }>> = {
+interface EarlierVersion {
+  /** Whether a record of that version with these choices gives the same numbers here. */
+  readonly reproduces: (c: { readonly fixedDraws?: boolean }) => boolean;
+  /** The records it does not reproduce, as words after "a record of <version>" (`with adaptive draws`). */
+  readonly others: string;
+  /** What changed for them. */
+  readonly changed: string;
+}
+const EARLIER_VERSIONS: Readonly<Record<string, EarlierVersion>> = {
   '0.1.0': {
     reproduces: (c) => c.fixedDraws === true,
+    others: 'with adaptive draws',
     changed:
       'its adaptive draw rule looked first at 2000 draws, then every 1000, with the error estimate itself; this version looks at 1000, then every 250, with the error at its upper confidence limit, so a galaxy can stop at another number of draws; its fixed-draw records reproduce exactly',
   },
@@ -66,12 +75,13 @@ export function validateRecord(x: unknown): AuditRecord {
 }
 
 /**
- * Whether this version reproduces a (validated) record's numbers exactly; where it does not, why, in a
- * sentence that starts with `record.version`, and what changed. The CLI refuses such a record; the page opens it (the
- * sample and choices are valid here) and says that its numbers are this version's.
+ * Whether this version reproduces a (validated) record's numbers exactly; where it does not, why (a
+ * sentence that starts with `record.version`), which records of its version (`others`) and what changed.
+ * The CLI refuses such a record; the page opens it (its sample and choices are valid here) and says that
+ * its numbers are this version's.
  */
-export function reproduction(rec: AuditRecord): { readonly exact: true } | { readonly exact: false; readonly reason: string; readonly changed: string } {
+export function reproduction(rec: AuditRecord): { readonly exact: true } | { readonly exact: false; readonly reason: string; readonly others: string; readonly changed: string } {
   const earlier = rec.version === TOOL_VERSION ? undefined : EARLIER_VERSIONS[rec.version];
   if (!earlier || earlier.reproduces(rec.choices)) return { exact: true };
-  return { exact: false, reason: `record.version: a record of ${TOOL_NAME} ${rec.version} with adaptive draws is not reproduced exactly by ${TOOL_VERSION}: ${earlier.changed}`, changed: earlier.changed };
+  return { exact: false, reason: `record.version: a record of ${TOOL_NAME} ${rec.version} ${earlier.others} is not reproduced exactly by ${TOOL_VERSION}: ${earlier.changed}`, others: earlier.others, changed: earlier.changed };
 }
