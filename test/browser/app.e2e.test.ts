@@ -1,4 +1,5 @@
 import { expect } from 'chai';
+import { decodeShare, encodeShare } from '../../src/ui/app-state.js';
 
 /**
  * End to end on the built bundle (public/app.js and public/audit.worker.js): the real worker, the real
@@ -171,15 +172,12 @@ describe('the page, end to end', () => {
     const app = await freshApp();
     (deep(app, 'button').find((b) => b.textContent === 'Share link') as HTMLButtonElement).click();
     await new Promise((r) => setTimeout(r, 200));
-    const b64 = location.hash.slice('#state='.length).replace(/-/g, '+').replace(/_/g, '/');
-    const rec = JSON.parse(new TextDecoder().decode(Uint8Array.from(atob(b64), (c) => c.charCodeAt(0))));
+    const rec = decodeShare(location.hash);
     app.remove();
     expect(rec.choices.fixedDraws).to.equal(undefined); // the page's default: adaptive draws
     // a link an earlier version made, of the demo less its last row (7 rows: not the demo the page falls back to)
     const old = { ...rec, version: '0.1.0', sample_csv: rec.sample_csv.trimEnd().split('\n').slice(0, -1).join('\n') + '\n' };
-    const bytes = new TextEncoder().encode(JSON.stringify(old));
-    const link = '#state=' + btoa(String.fromCharCode(...bytes)).replace(/\+/g, '-').replace(/\//g, '_').replace(/=+$/, '');
-    const opened = await freshApp(link);
+    const opened = await freshApp(encodeShare(old));
     const notice = deep(opened, '.notice')[0]?.textContent ?? '';
     expect(notice).to.contain('State restored from the link.');
     expect(notice).to.contain('made by baryon-audit 0.1.0 with adaptive draws: its numbers are now those of 0.2.0');
